@@ -1,0 +1,15 @@
+import type { NextConfig } from "next";
+
+const nextConfig: NextConfig = {
+  // A second build directory lets two checkouts' servers (or a test run beside
+  // a dev server) live side by side without clobbering each other.
+  distDir: process.env.NEXT_DIST_DIR || ".next",
+  // libSQL ships a native module: load it from node_modules at run time.
+  serverExternalPackages: ["@libsql/client", "libsql", "sharp", "pdfkit", "bcryptjs"],
+  poweredByHeader: false,
+  typedRoutes: false,
+  // unauthorized() and forbidden() render app/unauthorized.tsx and app/forbidden.tsx with 401/403.
+  experimental: { authInterrupts: true },
+};
+
+export default nextConfig;
