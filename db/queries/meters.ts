@@ -1,0 +1,57 @@
+import { and, desc, eq } from "drizzle-orm";
+import { writeTx } from "@/db/client";
+import { meterReadings, units } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/session-user";
+import { nowIso } from "@/lib/ids";
+import { checkMeterReading } from "@/lib/meters";
+import { invalidInput, notFound } from "@/lib/http/problem";
+import type { MeterReadingInput } from "@/lib/validation/meter-reading";
+import { recordAudit } from "./audit";
+import { scopedTo } from "./scope";
+
+/** Adds a reading after checking it against the latest one, in one transaction. */
+export async function addMeterReading(user: SessionUser, unitId: string, input: MeterReadingInput) {
+  return writeTx(async (tx) => {
+    const [unit] = await tx
+      .select({ id: units.id, accountId: units.accountId })
+      .from(units)
+      .where(and(eq(units.id, unitId), scopedTo(units.accountId, user)))
+      .limit(1);
+    if (!unit) throw notFound("That unit");
+
+    const [previous] = await tx
+      .select({ value: meterReadings.value, readAt: meterReadings.readAt })
+      .from(meterReadings)
+      .where(and(eq(meterReadings.unitId, unitId), eq(meterReadings.kind, input.kind)))
+      .orderBy(desc(meterReadings.readAt), desc(meterReadings.createdAt))
+      .limit(1);
+
+    const check = checkMeterReading(input.kind, previous ?? null, input);
+    if (!check.ok) throw invalidInput([{ path: "value", message: check.message }], check.message);
+
+    const readAt = input.readAt ?? nowIso();
+    const [row] = await tx
+      .insert(meterReadings)
+      .values({
+        unitId,
+        kind: input.kind,
+        value: input.value,
+        meterReplaced: input.meterReplaced,
+        readAt,
+        recordedBy: user.id,
+        note: input.note,
+      })
+      .returning();
+    await tx.update(units).set({ updatedAt: nowIso() }).where(eq(units.id, unitId));
+    if (input.meterReplaced) {
+      await recordAudit(tx, user, {
+        action: "meter.replaced",
+        entityType: "unit",
+        entityId: unitId,
+        accountId: unit.accountId,
+        detail: { kind: input.kind, previous: previous?.value ?? null, value: input.value },
+      });
+    }
+    return row!;
+  });
+}

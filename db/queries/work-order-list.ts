@@ -1,0 +1,70 @@
+import { and, desc, eq, lt, ne, sql } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { accounts, units, users, workOrders } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/session-user";
+import { workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
+import { invalidInput } from "@/lib/http/problem";
+import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
+import { scopedTo } from "./scope";
+
+export interface WorkOrderListItem {
+  id: string;
+  number: number;
+  label: string;
+  unitId: string;
+  accountId: string;
+  status: WorkOrderStatus;
+  promisedAt: string | null;
+  updatedAt: string;
+  title: string;
+  unitNumber: string;
+  unitDescription: string;
+  accountName: string;
+  technicianId: string | null;
+  technicianName: string | null;
+  lastNote: string;
+}
+
+/** Open work orders the caller may see (the Floor, the fleet's "in the shop" list, GET /api/v1/work-orders). */
+export async function listOpenWorkOrders(
+  user: SessionUser,
+  opts: PageQuery & { status?: WorkOrderStatus; technicianId?: string },
+): Promise<{ workOrders: WorkOrderListItem[]; nextCursor: string | null }> {
+  const after = decodeCursor(opts.cursor, 1);
+  if (opts.cursor && !after) throw invalidInput([{ path: "cursor", message: "Not a cursor this API issued." }]);
+
+  const rows = await getDb()
+    .select({
+      id: workOrders.id,
+      number: workOrders.number,
+      unitId: workOrders.unitId,
+      accountId: workOrders.accountId,
+      status: workOrders.status,
+      promisedAt: workOrders.promisedAt,
+      updatedAt: workOrders.updatedAt,
+      title: workOrders.title,
+      unitNumber: units.unitNumber,
+      unitDescription: units.description,
+      accountName: accounts.name,
+      technicianId: workOrders.assignedTechId,
+      technicianName: users.name,
+      lastNote: sql<string>`coalesce((select e.note from status_events e where e.work_order_id = ${workOrders.id} order by e.at desc limit 1), '')`,
+    })
+    .from(workOrders)
+    .innerJoin(units, eq(units.id, workOrders.unitId))
+    .innerJoin(accounts, eq(accounts.id, workOrders.accountId))
+    .leftJoin(users, eq(users.id, workOrders.assignedTechId))
+    .where(
+      and(
+        scopedTo(workOrders.accountId, user),
+        opts.status ? eq(workOrders.status, opts.status) : ne(workOrders.status, "released"),
+        opts.technicianId ? eq(workOrders.assignedTechId, opts.technicianId) : undefined,
+        after ? lt(workOrders.number, Number(after[0])) : undefined,
+      ),
+    )
+    .orderBy(desc(workOrders.number))
+    .limit(opts.limit + 1);
+
+  const { page, nextCursor } = paginate(rows, opts.limit, (r) => [r.number]);
+  return { workOrders: page.map((r) => ({ ...r, label: workOrderLabel(r.number) })), nextCursor };
+}

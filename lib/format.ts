@@ -1,0 +1,44 @@
+/** Dates and times for people, in the shop's time zone. Pure: the clock is passed in. */
+
+export const DEFAULT_TIME_ZONE = "America/Chicago";
+
+export function formatDate(iso: string | null | undefined, timeZone = DEFAULT_TIME_ZONE): string {
+  if (!iso) return "—";
+  // Calendar dates (YYYY-MM-DD) have no time zone: show them as written.
+  const date = /^\d{4}-\d{2}-\d{2}$/.test(iso) ? new Date(`${iso}T12:00:00Z`) : new Date(iso);
+  const zone = /^\d{4}-\d{2}-\d{2}$/.test(iso) ? "UTC" : timeZone;
+  return new Intl.DateTimeFormat("en-US", { month: "short", day: "numeric", year: "numeric", timeZone: zone }).format(date);
+}
+
+export function formatDateTime(iso: string | null | undefined, timeZone = DEFAULT_TIME_ZONE): string {
+  if (!iso) return "—";
+  return new Intl.DateTimeFormat("en-US", {
+    month: "short",
+    day: "numeric",
+    hour: "numeric",
+    minute: "2-digit",
+    timeZone,
+  }).format(new Date(iso));
+}
+
+/** "3 min ago", "2 h ago", "4 days ago"; older than two weeks gives the date. */
+export function formatAgo(iso: string, now: Date, timeZone = DEFAULT_TIME_ZONE): string {
+  const seconds = Math.round((now.getTime() - Date.parse(iso)) / 1000);
+  if (seconds < 45) return "just now";
+  const minutes = Math.round(seconds / 60);
+  if (minutes < 60) return `${minutes} min ago`;
+  const hours = Math.round(minutes / 60);
+  if (hours < 24) return `${hours} h ago`;
+  const days = Math.round(hours / 24);
+  if (days < 14) return `${days} day${days === 1 ? "" : "s"} ago`;
+  return formatDate(iso, timeZone);
+}
+
+/** Calendar date (YYYY-MM-DD) of an instant in a time zone. */
+export function calendarDate(instant: Date, timeZone = DEFAULT_TIME_ZONE): string {
+  return new Intl.DateTimeFormat("en-CA", { year: "numeric", month: "2-digit", day: "2-digit", timeZone }).format(instant);
+}
+
+export function formatQuantity(milli: number): string {
+  return (milli / 1000).toLocaleString("en-US", { maximumFractionDigits: 3 });
+}

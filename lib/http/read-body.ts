@@ -1,0 +1,42 @@
+import { HttpError } from "./problem";
+
+export const DEFAULT_MAX_BODY_BYTES = 64 * 1024;
+
+/** Reads a JSON request body, refusing oversize, non-JSON and malformed bodies with a 4xx. */
+export async function readJsonBody(request: Request, maxBytes = DEFAULT_MAX_BODY_BYTES): Promise<unknown> {
+  const type = request.headers.get("content-type") ?? "";
+  if (!/^application\/(.+\+)?json\b/i.test(type)) {
+    throw new HttpError(415, "unsupported_media_type", "Unsupported media type", "Send the body as application/json.");
+  }
+  const declared = Number(request.headers.get("content-length") ?? "0");
+  if (declared > maxBytes) throw tooLarge(maxBytes);
+  const text = await readLimited(request, maxBytes);
+  if (text.trim() === "") throw new HttpError(400, "malformed_json", "Malformed JSON", "The request body is empty.");
+  try {
+    return JSON.parse(text);
+  } catch {
+    throw new HttpError(400, "malformed_json", "Malformed JSON", "The request body is not valid JSON.");
+  }
+}
+
+function tooLarge(maxBytes: number) {
+  return new HttpError(413, "payload_too_large", "Payload too large", `The body may be at most ${maxBytes} bytes.`);
+}
+
+async function readLimited(request: Request, maxBytes: number): Promise<string> {
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > maxBytes) {
+      await reader.cancel();
+      throw tooLarge(maxBytes);
+    }
+    chunks.push(value);
+  }
+  return new TextDecoder().decode(Buffer.concat(chunks));
+}
