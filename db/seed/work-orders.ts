@@ -1,0 +1,200 @@
+import { eq } from "drizzle-orm";
+import { concerns, counters, statusEvents, workOrders } from "@/db/schema";
+import { WORK_ORDER_STATUSES, type WorkOrderStatus } from "@/lib/domain";
+import { type SeedContext, daysAgo, id } from "./context";
+import { UNIT_SEEDS } from "./units";
+
+interface ConcernSeed {
+  complaint: string;
+  cause?: string;
+  correction?: string;
+  intermittent?: boolean;
+  recordHint?: string;
+}
+
+interface WorkOrderSeed {
+  key: string;
+  number: number;
+  unit: string;
+  status: WorkOrderStatus;
+  title: string;
+  tech?: "tech" | "tech2";
+  openedDaysAgo: number;
+  promisedInDays?: number;
+  poNumber?: string;
+  concerns: ConcernSeed[];
+  notes?: Partial<Record<WorkOrderStatus, string>>;
+}
+
+export const OPEN_WORK_ORDERS: WorkOrderSeed[] = [
+  {
+    key: "W-1042", number: 1042, unit: "T-14", status: "waiting_approval", tech: "tech", openedDaysAgo: 3, promisedInDays: 4,
+    title: "Plow hydraulics, steering and brakes before storm season", poNumber: "BT-2026-0412",
+    concerns: [
+      { complaint: "Plow drifts down overnight with the valve in hold.", cause: "Lift cylinder piston seals bypassing; scoring on the rod.", correction: "" },
+      { complaint: "Truck wanders at highway speed.", cause: "Drag link and both tie-rod ends worn past limits.", correction: "" },
+      { complaint: "Annual inspection due next month.", cause: "", correction: "" },
+    ],
+    notes: { diagnosing: "On the lift. Starting with the plow circuit.", waiting_approval: "Estimate sent: steering joints, lift cylinder reseal, front brake chambers." },
+  },
+  {
+    key: "W-1043", number: 1043, unit: "T-9", status: "diagnosing", tech: "tech", openedDaysAgo: 2, promisedInDays: 3,
+    title: "No-start after cold nights",
+    concerns: [
+      {
+        complaint: "Cranks slowly and will not start after sitting overnight in the cold; fine once jumped.",
+        intermittent: true,
+        recordHint: "Note how long it sat and the outside temperature; if you can, read battery voltage before cranking.",
+      },
+    ],
+    notes: { diagnosing: "Batteries load-tested fine warm. Setting up a key-off drain test overnight." },
+  },
+  {
+    key: "W-1044", number: 1044, unit: "BUS-22", status: "waiting_approval", tech: "tech2", openedDaysAgo: 1, promisedInDays: 1,
+    title: "Brake check failed at pre-trip",
+    concerns: [{ complaint: "Driver reports long pedal and the pre-trip brake check failed.", cause: "Right rear pushrod stroke beyond limit; slack adjuster not adjusting.", correction: "" }],
+    notes: { diagnosing: "Measured strokes on all four wheel ends.", waiting_approval: "Bus is out of service until the right rear is fixed. Estimate sent." },
+  },
+  {
+    key: "W-1045", number: 1045, unit: "H-7", status: "repairing", tech: "tech", openedDaysAgo: 4, promisedInDays: 1,
+    title: "Air system leaks down overnight",
+    concerns: [{ complaint: "Air gauges at zero every morning.", cause: "Leaking trailer supply glad-hand seal and a cracked service line at the rear axle.", correction: "Replacing seal and line; retest leak-down." }],
+    notes: { diagnosing: "Leak-down 5 psi/min brakes released.", repairing: "Parts in. Replacing the service line now." },
+  },
+  {
+    key: "W-1046", number: 1046, unit: "L-3", status: "waiting_parts", tech: "tech2", openedDaysAgo: 6, promisedInDays: 5,
+    title: "Bucket tilt cylinder leaking",
+    concerns: [{ complaint: "Oil running down the tilt cylinder; bucket rolls back slowly.", cause: "Rod seal failed; rod chrome pitted.", correction: "Rod to be re-chromed by the machine shop; seal kit on order." }],
+    notes: { waiting_parts: "Rod at the machine shop, back Thursday." },
+  },
+  {
+    key: "W-1047", number: 1047, unit: "BUS-9", status: "checked_in", openedDaysAgo: 0, promisedInDays: 2,
+    title: "Heater blower weak; exhaust smell at the rear",
+    concerns: [
+      { complaint: "Front heater blower weak on high." },
+      { complaint: "Driver smells exhaust at the rear seats." },
+    ],
+  },
+  {
+    key: "W-1048", number: 1048, unit: "H-5", status: "final_check", tech: "tech2", openedDaysAgo: 5, promisedInDays: 0,
+    title: "Trailer ABS lamp on",
+    concerns: [{ complaint: "Trailer ABS lamp stays on after start-up.", cause: "Chafed sensor lead at the right rear.", correction: "Repaired lead, cleared codes, road-tested." }],
+    notes: { final_check: "Road test done; lamp out. Final walk-around." },
+  },
+  {
+    key: "W-1049", number: 1049, unit: "T-21", status: "ready", tech: "tech2", openedDaysAgo: 2, promisedInDays: 0,
+    title: "Liftgate inoperative", poNumber: "BT-2026-0415",
+    concerns: [{ complaint: "Liftgate will not raise.", cause: "Corroded ground at the pump motor.", correction: "Cleaned and sealed ground; added a second ground strap." }],
+    notes: { ready: "Ready for pickup. Keys at the front counter." },
+  },
+  {
+    key: "W-1050", number: 1050, unit: "LD-2", status: "waiting_approval", tech: "tech", openedDaysAgo: 2, promisedInDays: 3,
+    title: "Engine overheating under load",
+    concerns: [{ complaint: "Temperature climbs into the red when loading trucks.", cause: "Radiator core plugged with fines; fan belt glazed.", correction: "" }],
+    notes: { waiting_approval: "Estimate sent: radiator clean-out and belt." },
+  },
+];
+
+const HISTORY_TITLES = [
+  "Preventive maintenance service",
+  "Annual inspection",
+  "Brake adjustment and chamber replacement",
+  "Hydraulic hose replacement",
+];
+
+function timeline(seed: { status: WorkOrderStatus; openedDaysAgo: number; notes?: Partial<Record<WorkOrderStatus, string>> }, ctx: SeedContext) {
+  const last = WORK_ORDER_STATUSES.indexOf(seed.status);
+  const steps = WORK_ORDER_STATUSES.slice(0, last + 1);
+  // Open visits: moves spread from opening to an hour ago. Past visits took three days.
+  const opened = ctx.now.getTime() - Math.max(seed.openedDaysAgo, 0.1) * 86_400_000;
+  const end = seed.status === "released" ? opened + 3 * 86_400_000 : ctx.now.getTime() - 3_600_000;
+  const step = (end - opened) / Math.max(steps.length - 1, 1);
+  return steps.map((status, i) => ({
+    status,
+    note: seed.notes?.[status] ?? (i === 0 ? "Unit checked in." : ""),
+    at: new Date(opened + step * i).toISOString(),
+  }));
+}
+
+export async function seedWorkOrders(ctx: SeedContext): Promise<void> {
+  const techs = { tech: id(ctx, "user:tech@quarry-road.example"), tech2: id(ctx, "user:tech2@quarry-road.example") };
+  const writer = id(ctx, "user:writer@quarry-road.example");
+
+  // A year of released visits first (W-1001 …), so every unit has history.
+  let number = 1000;
+  for (const [i, u] of UNIT_SEEDS.entries()) {
+    for (const visit of [0, 1]) {
+      if (visit === 1 && i % 3 === 2) continue;
+      number += 1;
+      const openedDaysAgo = 40 + ((i * 53 + visit * 97) % 300);
+      const woId = await insertWorkOrder(ctx, {
+        key: `W-${number}`, number, unit: u.key, status: "released", tech: i % 2 ? "tech2" : "tech",
+        openedDaysAgo, title: HISTORY_TITLES[(i + visit) % HISTORY_TITLES.length]!,
+        concerns: [{ complaint: "Scheduled service.", cause: "Due by hours.", correction: "Serviced per the unit's schedule." }],
+      }, techs, writer);
+      ctx.ids.set(`wo:W-${number}`, woId);
+    }
+  }
+  if (number >= 1042) throw new Error("seed: history numbers ran into the open work orders");
+
+  for (const wo of OPEN_WORK_ORDERS) {
+    ctx.ids.set(`wo:${wo.key}`, await insertWorkOrder(ctx, wo, techs, writer));
+  }
+  const maxNumber = Math.max(...OPEN_WORK_ORDERS.map((w) => w.number));
+  await ctx.db.update(counters).set({ value: maxNumber }).where(eq(counters.name, "work_order"));
+}
+
+async function insertWorkOrder(
+  ctx: SeedContext,
+  wo: WorkOrderSeed,
+  techs: Record<"tech" | "tech2", string>,
+  writer: string,
+): Promise<string> {
+  const unit = UNIT_SEEDS.find((u) => u.key === wo.unit)!;
+  const events = timeline(wo, ctx);
+  const openedAt = events[0]!.at;
+  const lastAt = events.at(-1)!.at;
+  const released = wo.status === "released";
+  const [row] = await ctx.db
+    .insert(workOrders)
+    .values({
+      number: wo.number,
+      unitId: id(ctx, `unit:${unit.key}`),
+      accountId: id(ctx, `account:${unit.account}`),
+      status: wo.status,
+      title: wo.title,
+      assignedTechId: wo.tech ? techs[wo.tech] : null,
+      promisedAt: wo.promisedInDays === undefined ? null : daysAgo(ctx, -wo.promisedInDays, 22),
+      poNumber: wo.poNumber ?? null,
+      openedAt,
+      sentForApprovalAt: events.find((e) => e.status === "waiting_approval")?.at ?? null,
+      releasedAt: released ? lastAt : null,
+      createdBy: writer,
+      createdAt: openedAt,
+      updatedAt: lastAt,
+    })
+    .returning({ id: workOrders.id });
+  const woId = row!.id;
+  await ctx.db.insert(statusEvents).values(
+    events.map((e) => ({ workOrderId: woId, status: e.status, note: e.note, byUserId: wo.tech ? techs[wo.tech] : writer, at: e.at })),
+  );
+  const concernRows = await ctx.db
+    .insert(concerns)
+    .values(
+      wo.concerns.map((c, i) => ({
+        unitId: id(ctx, `unit:${unit.key}`),
+        workOrderId: woId,
+        position: i,
+        complaint: c.complaint,
+        cause: c.cause ?? "",
+        correction: c.correction ?? "",
+        intermittent: c.intermittent ?? false,
+        recordHint: c.recordHint ?? "",
+        createdBy: writer,
+        createdAt: openedAt,
+      })),
+    )
+    .returning({ id: concerns.id });
+  concernRows.forEach((c, i) => ctx.ids.set(`concern:${wo.key}:${i}`, c.id));
+  return woId;
+}
