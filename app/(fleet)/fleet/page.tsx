@@ -1,0 +1,24 @@
+import type { Metadata } from "next";
+import { FleetUnits } from "@/components/fleet/fleet-units";
+import { PageHeader } from "@/components/ui/page-header";
+import { getAccountName } from "@/db/queries/settings";
+import { listUnits } from "@/db/queries/units";
+import { listOpenWorkOrders } from "@/db/queries/work-order-list";
+import { requireUser } from "@/lib/auth/current-user";
+
+export const metadata: Metadata = { title: "Your units" };
+
+export default async function FleetHome() {
+  const user = await requireUser();
+  const [units, orders, accountName] = await Promise.all([
+    listUnits(user, { limit: 200 }),
+    listOpenWorkOrders(user, { limit: 200 }),
+    getAccountName(user.accountId ?? ""),
+  ]);
+  return (
+    <>
+      <PageHeader title="Your units" kicker={accountName} />
+      <FleetUnits initialUnits={units} initialOrders={orders} />
+    </>
+  );
+}

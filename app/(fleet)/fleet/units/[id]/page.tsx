@@ -1,0 +1,55 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { LiveUnitStatus } from "@/components/fleet/live-unit-status";
+import { Card, CardTitle } from "@/components/ui/card";
+import { PageHeader } from "@/components/ui/page-header";
+import { DeferredWork } from "@/components/units/deferred-work";
+import { MeterList } from "@/components/units/meter-list";
+import { UnitFacts } from "@/components/units/unit-facts";
+import { WorkOrderHistory } from "@/components/units/work-order-history";
+import { getUnitDetail } from "@/db/queries/units";
+import { requireUser } from "@/lib/auth/current-user";
+import { calendarDate } from "@/lib/format";
+
+export const metadata: Metadata = { title: "Unit" };
+
+export default async function FleetUnitPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const user = await requireUser();
+  // Scoped to the user's account: another account's unit is simply not found.
+  const detail = await getUnitDetail(user, id);
+  if (!detail) notFound();
+  const { unit, openWorkOrder, readings, history, deferred } = detail;
+  return (
+    <>
+      <PageHeader title={`Unit ${unit.unitNumber}`} kicker={unit.description}>
+        <LiveUnitStatus
+          unitId={unit.id}
+          initial={{ status: openWorkOrder?.status ?? null, workOrderId: openWorkOrder?.id ?? null }}
+        />
+      </PageHeader>
+      <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
+        <div className="flex flex-col gap-4">
+          <Card>
+            <CardTitle>Visits</CardTitle>
+            <WorkOrderHistory rows={history} />
+          </Card>
+          <Card>
+            <CardTitle>Deferred work</CardTitle>
+            <DeferredWork rows={deferred} />
+          </Card>
+        </div>
+        <div className="flex flex-col gap-4">
+          <Card>
+            <CardTitle>About this unit</CardTitle>
+            <UnitFacts unit={unit} today={calendarDate(new Date())} />
+          </Card>
+          <Card>
+            <CardTitle>Meter readings</CardTitle>
+            <MeterList rows={readings.slice(0, 6)} />
+          </Card>
+        </div>
+      </div>
+    </>
+  );
+}

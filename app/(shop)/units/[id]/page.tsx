@@ -1,0 +1,67 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { Card, CardTitle } from "@/components/ui/card";
+import { PageHeader } from "@/components/ui/page-header";
+import { StatusPill } from "@/components/ui/status-pill";
+import { DeferredWork } from "@/components/units/deferred-work";
+import { MeterList } from "@/components/units/meter-list";
+import { MeterReadingForm } from "@/components/units/meter-reading-form";
+import { UnitFacts } from "@/components/units/unit-facts";
+import { WorkOrderHistory } from "@/components/units/work-order-history";
+import { getUnitDetail } from "@/db/queries/units";
+import { requireUser } from "@/lib/auth/current-user";
+import { workOrderLabel } from "@/lib/domain";
+import { calendarDate } from "@/lib/format";
+
+export const metadata: Metadata = { title: "Unit" };
+
+export default async function ShopUnitPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const user = await requireUser();
+  const detail = await getUnitDetail(user, id);
+  if (!detail) notFound();
+  const { unit, openWorkOrder, readings, history, deferred } = detail;
+  return (
+    <>
+      <PageHeader title={`Unit ${unit.unitNumber}`} kicker={unit.accountName}>
+        {openWorkOrder ? <StatusPill status={openWorkOrder.status} /> : <StatusPill status={null} />}
+      </PageHeader>
+      <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
+        <div className="flex flex-col gap-4">
+          <Card>
+            <CardTitle>About this unit</CardTitle>
+            <UnitFacts unit={unit} today={calendarDate(new Date())} />
+          </Card>
+          {openWorkOrder ? (
+            <Card>
+              <CardTitle>In the shop now</CardTitle>
+              <p>
+                <Link href={`/work-orders/${openWorkOrder.id}`} className="font-semibold">
+                  {workOrderLabel(openWorkOrder.number)} · {openWorkOrder.title}
+                </Link>
+              </p>
+            </Card>
+          ) : null}
+          <Card>
+            <CardTitle>Visits</CardTitle>
+            <WorkOrderHistory rows={history} hrefFor={(woId) => `/work-orders/${woId}`} />
+          </Card>
+        </div>
+        <div className="flex flex-col gap-4">
+          <Card>
+            <CardTitle>Deferred work</CardTitle>
+            <DeferredWork rows={deferred} />
+          </Card>
+          <Card>
+            <CardTitle>Meter readings</CardTitle>
+            <MeterReadingForm unitId={unit.id} />
+            <div className="mt-4">
+              <MeterList rows={readings} />
+            </div>
+          </Card>
+        </div>
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,31 @@
+import { getUnitDetail } from "@/db/queries/units";
+import { CAN } from "@/lib/auth/policy";
+import { apiRoute, idParams } from "@/lib/http/api-route";
+import { notFound } from "@/lib/http/problem";
+import { lineAmountCents } from "@/lib/money";
+
+export const dynamic = "force-dynamic";
+
+export const GET = apiRoute({ roles: CAN.anyone, params: idParams }, async ({ user, params }) => {
+  const detail = await getUnitDetail(user, params.id);
+  if (!detail) throw notFound("That unit");
+  const { unit, openWorkOrder, readings, history, deferred } = detail;
+  return {
+    ...unit,
+    status: openWorkOrder?.status ?? (history.length > 0 ? "released" : null),
+    workOrderId: openWorkOrder?.id ?? null,
+    meterReadings: readings,
+    deferredLines: deferred.map((l) => ({
+      id: l.id,
+      workOrderId: l.workOrderId,
+      kind: l.kind,
+      description: l.description,
+      quantity: l.quantityMilli / 1000,
+      unitPriceCents: l.unitPriceCents,
+      amountCents: lineAmountCents(l.quantityMilli, l.unitPriceCents),
+      state: l.state,
+      updatedAt: l.updatedAt,
+    })),
+    workOrders: history,
+  };
+});

@@ -1,0 +1,22 @@
+import "@fontsource-variable/atkinson-hyperlegible-next";
+import "./globals.css";
+import type { Metadata, Viewport } from "next";
+
+export const metadata: Metadata = {
+  title: { default: "Cotter", template: "%s · Cotter" },
+  description: "Work orders, findings, estimates and approvals between a truck shop and its fleets.",
+};
+
+export const viewport: Viewport = {
+  width: "device-width",
+  initialScale: 1,
+  themeColor: "#f6f1e7",
+};
+
+export default function RootLayout({ children }: { children: React.ReactNode }) {
+  return (
+    <html lang="en">
+      <body>{children}</body>
+    </html>
+  );
+}

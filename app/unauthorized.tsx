@@ -1,0 +1,5 @@
+import { SignInRedirect } from "@/components/auth/sign-in-redirect";
+
+export default function Unauthorized() {
+  return <SignInRedirect />;
+}

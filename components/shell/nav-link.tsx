@@ -1,0 +1,20 @@
+"use client";
+
+import Link from "next/link";
+import { usePathname } from "next/navigation";
+
+export function NavLink({ href, children }: { href: string; children: React.ReactNode }) {
+  const pathname = usePathname();
+  const active = pathname === href || (href !== "/" && pathname.startsWith(`${href}/`));
+  return (
+    <Link
+      href={href}
+      aria-current={active ? "page" : undefined}
+      className={`flex min-h-touch items-center border-b-4 px-3 font-semibold no-underline ${
+        active ? "border-rust text-ink" : "border-transparent text-ink-soft hover:text-ink"
+      }`}
+    >
+      {children}
+    </Link>
+  );
+}
