@@ -1,0 +1,23 @@
+import { existsSync } from "node:fs";
+import { startFakeSmtp } from "./smtp/server";
+
+// Read the same .env files Next.js reads, so "is a real key configured?" has one answer.
+for (const file of [".env.local", ".env"]) if (existsSync(file)) process.loadEnvFile(file);
+
+/** Starts a local fake for every hosted service that has no real configuration. */
+async function main() {
+  const started: string[] = [];
+  if (!process.env.SMTP_URL) {
+    const smtp = await startFakeSmtp({
+      smtpPort: Number(process.env.FAKE_SMTP_PORT ?? 2525),
+      httpPort: Number(process.env.FAKE_SMTP_HTTP_PORT ?? 2526),
+    });
+    started.push(`mail catcher: smtp://127.0.0.1:${smtp.smtpPort} (caught mail at /dev/mail for the owner)`);
+  }
+  console.log(started.length ? `Local fakes running:\n  ${started.join("\n  ")}` : "All services configured; no fakes started.");
+}
+
+main().catch((error: unknown) => {
+  console.error(error);
+  process.exit(1);
+});
