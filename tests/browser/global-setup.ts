@@ -1,0 +1,88 @@
+import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { existsSync, mkdirSync, rmSync } from "node:fs";
+import { createServer } from "node:net";
+import path from "node:path";
+import type { TestProject } from "vitest/node";
+import { migrateDatabase } from "@/db/migrate";
+import { seedDatabase } from "@/db/seed";
+import { startFakeSmtp } from "@/mocks/smtp/server";
+
+const root = path.join(import.meta.dirname, "..", "..");
+const distDir = ".next-test";
+
+declare module "vitest" {
+  export interface ProvidedContext {
+    baseUrl: string;
+    mailUrl: string;
+  }
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = createServer();
+    server.listen(0, "127.0.0.1", () => {
+      const address = server.address();
+      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
+    });
+  });
+}
+
+async function waitForHealth(url: string, server: ChildProcess, timeoutMs = 60_000): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    if (server.exitCode !== null) throw new Error(`app server exited with ${server.exitCode}`);
+    try {
+      const res = await fetch(`${url}/api/v1/health`);
+      if (res.ok) return;
+    } catch {
+      // not up yet
+    }
+    await new Promise((r) => setTimeout(r, 300));
+  }
+  throw new Error(`app server did not answer at ${url} within ${timeoutMs} ms`);
+}
+
+/**
+ * Builds the app once, gives it a fresh demo database and local fakes of the
+ * hosted services, serves it with `next start`, and tells the tests where.
+ * COTTER_TEST_SKIP_BUILD=1 reuses an earlier test build while iterating.
+ */
+export default async function setup(project: TestProject) {
+  const env = { ...process.env, NEXT_DIST_DIR: distDir, NEXT_TELEMETRY_DISABLED: "1" };
+  if (!(process.env.COTTER_TEST_SKIP_BUILD === "1" && existsSync(path.join(root, distDir)))) {
+    const build = spawnSync("npx", ["next", "build"], { cwd: root, env, stdio: "inherit" });
+    if (build.status !== 0) throw new Error("next build failed");
+  }
+
+  const dir = path.join(root, "tests", ".artifacts", "browser");
+  rmSync(dir, { recursive: true, force: true });
+  mkdirSync(dir, { recursive: true });
+  const dbUrl = `file:${path.join(dir, "cotter.db")}`;
+  await migrateDatabase(dbUrl);
+  await seedDatabase(dbUrl);
+
+  const smtp = await startFakeSmtp();
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const server = spawn(path.join(root, "node_modules", ".bin", "next"), ["start", "-p", String(port), "-H", "127.0.0.1"], {
+    cwd: root,
+    env: {
+      ...env,
+      NODE_ENV: "production",
+      DATABASE_URL: dbUrl,
+      NEXTAUTH_URL: baseUrl,
+      NEXTAUTH_SECRET: "browser-tests-secret-browser-tests-secret",
+      SMTP_URL: `smtp://127.0.0.1:${smtp.smtpPort}`,
+    },
+    stdio: ["ignore", "inherit", "inherit"],
+  });
+  await waitForHealth(baseUrl, server);
+
+  project.provide("baseUrl", baseUrl);
+  project.provide("mailUrl", `http://127.0.0.1:${smtp.httpPort}`);
+
+  return async () => {
+    server.kill("SIGTERM");
+    await smtp.close();
+  };
+}

@@ -1,0 +1,57 @@
+import { existsSync, mkdirSync } from "node:fs";
+import path from "node:path";
+import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { inject } from "vitest";
+
+// Debian's Chromium: the binary itself avoids the wrapper script's warning.
+const EXECUTABLE = ["/usr/lib/chromium/chromium", "/usr/bin/chromium"].find((p) => existsSync(p)) ?? "/usr/bin/chromium";
+
+export const PHONE = { width: 390, height: 844 };
+export const DESKTOP = { width: 1366, height: 900 };
+export const DEMO_PASSWORD = "cotter-demo";
+
+export function baseUrl(): string {
+  return inject("baseUrl");
+}
+
+/** Playwright gives each launch a fresh, empty profile directory of its own. */
+export async function launch(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: EXECUTABLE,
+    args: [
+      "--no-sandbox",
+      "--disable-gpu",
+      "--disable-quic",
+      "--disable-background-networking",
+      "--disable-component-update",
+      "--no-first-run",
+      "--disable-sync",
+    ],
+  });
+}
+
+export async function newContext(browser: Browser, viewport = PHONE): Promise<BrowserContext> {
+  return browser.newContext({ viewport, baseURL: baseUrl(), isMobile: viewport === PHONE, hasTouch: viewport === PHONE });
+}
+
+/** Signs in through the real sign-in page, as a person would. */
+export async function signIn(page: Page, email: string, password = DEMO_PASSWORD): Promise<void> {
+  await page.goto("/sign-in");
+  await page.getByLabel("E-mail").fill(email);
+  await page.getByLabel("Password").fill(password);
+  await page.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL((url) => !url.pathname.startsWith("/sign-in"));
+}
+
+const shots = path.join(import.meta.dirname, "..", ".artifacts", "screenshots");
+
+/** Keeps a screenshot of what the test saw, for people to look at. */
+export async function screenshot(page: Page, name: string): Promise<void> {
+  mkdirSync(shots, { recursive: true });
+  await page.screenshot({ path: path.join(shots, `${name}.png`), fullPage: true });
+}
+
+export async function caughtMail(): Promise<{ to: string[]; subject: string; text: string; html: string }[]> {
+  const res = await fetch(`${inject("mailUrl")}/messages`);
+  return ((await res.json()) as { messages: { to: string[]; subject: string; text: string; html: string }[] }).messages;
+}

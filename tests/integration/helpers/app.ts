@@ -1,0 +1,58 @@
+import { eq } from "drizzle-orm";
+import { encode } from "next-auth/jwt";
+import { getDb } from "@/db/client";
+import { users } from "@/db/schema";
+
+export const BASE = "http://localhost:3000";
+
+export async function userByEmail(email: string) {
+  const [row] = await getDb().select().from(users).where(eq(users.email, email)).limit(1);
+  if (!row) throw new Error(`no demo user ${email}`);
+  return row;
+}
+
+/** A real next-auth session cookie for a demo user, signed with the test secret. */
+export async function sessionCookie(email: string): Promise<string> {
+  const user = await userByEmail(email);
+  const token = await encode({
+    token: { sub: user.id, name: user.name, email: user.email, role: user.role, accountId: user.accountId },
+    secret: process.env.NEXTAUTH_SECRET!,
+  });
+  return `next-auth.session-token=${token}`;
+}
+
+type Handler = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
+
+/** Calls a route handler the way Next.js does, as a signed-in user or as nobody. */
+export interface Problem {
+  type: string;
+  title: string;
+  status: number;
+  detail: string;
+  code: string;
+  errors?: { path: string; message: string }[];
+}
+
+export async function call<T = Problem>(
+  handler: Handler,
+  options: { path: string; as?: string | null; method?: string; body?: unknown; params?: Record<string, string>; headers?: Record<string, string> },
+): Promise<{ status: number; body: T; headers: Headers }> {
+  const headers: Record<string, string> = { ...options.headers };
+  if (options.as) headers.cookie = await sessionCookie(options.as);
+  let body: string | undefined;
+  if (options.body !== undefined) {
+    headers["content-type"] ??= "application/json";
+    body = typeof options.body === "string" ? options.body : JSON.stringify(options.body);
+  }
+  const response = await handler(new Request(`${BASE}${options.path}`, { method: options.method ?? (body ? "POST" : "GET"), headers, body }), {
+    params: Promise.resolve(options.params ?? {}),
+  });
+  const text = await response.text();
+  let parsed: unknown = text;
+  try {
+    parsed = text ? JSON.parse(text) : null;
+  } catch {
+    // not JSON; keep the text
+  }
+  return { status: response.status, body: parsed as T, headers: response.headers };
+}
