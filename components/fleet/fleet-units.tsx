@@ -3,6 +3,7 @@
 import Link from "next/link";
 import useSWR from "swr";
 import { fetchJson, LIVE_REFRESH_MS } from "@/components/data/fetcher";
+import { useNow } from "@/components/data/use-now";
 import { StatusPill } from "@/components/ui/status-pill";
 import type { WorkOrderListItem } from "@/db/queries/work-order-list";
 import { workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
@@ -31,7 +32,7 @@ export function FleetUnits({ initialUnits, initialOrders }: { initialUnits: Unit
   const all = units.data?.units ?? [];
   const inShop = all.filter((u) => u.workOrderId && u.status !== "released");
   const home = all.filter((u) => !(u.workOrderId && u.status !== "released"));
-  const now = new Date();
+  const now = new Date(useNow());
 
   return (
     <div className="flex flex-col gap-6">

@@ -2,6 +2,7 @@
 
 import useSWR from "swr";
 import { fetchJson, LIVE_REFRESH_MS } from "@/components/data/fetcher";
+import { useNow } from "@/components/data/use-now";
 import { EmptyState } from "@/components/ui/empty-state";
 import { StatusPill } from "@/components/ui/status-pill";
 import type { WorkOrderListItem } from "@/db/queries/work-order-list";
@@ -20,7 +21,7 @@ export function FloorBoard({ initial, userId, isTech }: { initial: ListResponse;
     revalidateOnFocus: true,
   });
   const workOrders = data?.workOrders ?? [];
-  const now = Date.now();
+  const now = useNow();
   const mine = isTech ? workOrders.filter((w) => w.technicianId === userId) : [];
   const href = (w: WorkOrderListItem) => `/work-orders/${w.id}`;
 
