@@ -8,7 +8,8 @@ import { seedDatabase } from "@/db/seed";
 import { startFakeSmtp } from "@/mocks/smtp/server";
 
 const root = path.join(import.meta.dirname, "..", "..");
-const distDir = ".next-test";
+// A separate build directory per checkout or worktree lets test runs sit side by side.
+const distDir = process.env.COTTER_TEST_DIST_DIR ?? ".next-test";
 
 declare module "vitest" {
   export interface ProvidedContext {
