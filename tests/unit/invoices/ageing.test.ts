@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { calendarDate } from "@/lib/format";
+import { localMiddayIso } from "@/lib/invoices/calendar";
 import { ageBalances, bucketOf, daysPastDue } from "@/lib/receivables/ageing";
 
 // Buckets as the issue and api-v1.md name them: current, 1–30, 31–60, 61–90,
@@ -64,5 +65,14 @@ describe("ageing a set of balances", () => {
       ["b", 0],
       ["a", -15],
     ]);
+  });
+});
+
+describe("a payment dated by hand lands on its day in the shop's zone", () => {
+  it("noon in Chicago is 18:00 UTC in winter and 17:00 UTC in summer (IANA tz database via Intl)", () => {
+    expect(localMiddayIso("2026-01-15", "America/Chicago")).toBe("2026-01-15T18:00:00.000Z");
+    expect(localMiddayIso("2026-07-15", "America/Chicago")).toBe("2026-07-15T17:00:00.000Z");
+    expect(localMiddayIso("2026-07-15", "Asia/Tokyo")).toBe("2026-07-15T03:00:00.000Z");
+    expect(calendarDate(new Date(localMiddayIso("2026-03-08", "America/Chicago")), "America/Chicago")).toBe("2026-03-08");
   });
 });
