@@ -77,7 +77,7 @@ export interface InvoiceSources {
 }
 
 /** Everything an invoice is made from, read inside the caller's transaction. */
-export async function loadInvoiceSources(tx: Tx, user: SessionUser, workOrderId: string): Promise<InvoiceSources> {
+export async function loadInvoiceSources(tx: Tx, user: Pick<SessionUser, "role" | "accountId">, workOrderId: string): Promise<InvoiceSources> {
   const [wo] = await tx
     .select()
     .from(workOrders)
