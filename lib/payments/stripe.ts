@@ -10,17 +10,23 @@ export const LOCAL_FAKE_KEY = "sk_test_cotter_local_fake";
 
 const holder = globalThis as unknown as { __cotterStripe?: { signature: string; client: Stripe } };
 
+/** The configured key; an empty value counts as none. */
+function realKey(): string | null {
+  return env().STRIPE_SECRET_KEY || null;
+}
+
 export function usingLocalFake(): boolean {
-  return !env().STRIPE_SECRET_KEY;
+  return realKey() === null;
 }
 
 export function stripeClient(): Stripe {
   const e = env();
-  const key = e.STRIPE_SECRET_KEY ?? LOCAL_FAKE_KEY;
-  const signature = `${key}|${e.STRIPE_SECRET_KEY ? "" : e.FAKE_STRIPE_PORT}`;
+  const real = realKey();
+  const key = real ?? LOCAL_FAKE_KEY;
+  const signature = `${key}|${real ? "" : e.FAKE_STRIPE_PORT}`;
   if (!holder.__cotterStripe || holder.__cotterStripe.signature !== signature) {
     const common = { maxNetworkRetries: 2, timeout: 15_000 };
-    const client = e.STRIPE_SECRET_KEY
+    const client = real
       ? new Stripe(key, common)
       : new Stripe(key, { ...common, host: "127.0.0.1", port: e.FAKE_STRIPE_PORT, protocol: "http" });
     holder.__cotterStripe = { signature, client };
