@@ -6,6 +6,8 @@ import { SignOutButton } from "./sign-out-button";
 export interface NavItem {
   href: string;
   label: string;
+  /** For a section home whose other pages belong to other items: it is active on itself and under these paths only. */
+  activeUnder?: string[];
 }
 
 /** The frame around every signed-in page: wordmark, where you can go, who you are. */
@@ -33,7 +35,7 @@ export function AppShell({
           </Link>
           <nav aria-label="Main" className="order-last -mx-3 flex w-full overflow-x-auto sm:order-none sm:mx-0 sm:w-auto">
             {nav.map((item) => (
-              <NavLink key={item.href} href={item.href}>
+              <NavLink key={item.href} href={item.href} activeUnder={item.activeUnder}>
                 {item.label}
               </NavLink>
             ))}

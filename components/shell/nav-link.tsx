@@ -3,9 +3,10 @@
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 
-export function NavLink({ href, children }: { href: string; children: React.ReactNode }) {
+export function NavLink({ href, activeUnder, children }: { href: string; activeUnder?: string[]; children: React.ReactNode }) {
   const pathname = usePathname();
-  const active = pathname === href || (href !== "/" && pathname.startsWith(`${href}/`));
+  const under = activeUnder ?? (href === "/" ? [] : [href]);
+  const active = pathname === href || under.some((prefix) => pathname.startsWith(`${prefix}/`));
   return (
     <Link
       href={href}

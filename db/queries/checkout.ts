@@ -92,3 +92,14 @@ export async function startCheckout(user: SessionUser, invoiceId: string): Promi
   });
   return { url, sessionId: session.id };
 }
+
+/** The newest payment page opened for an invoice, to tell a payer coming back whether it has been confirmed. */
+export async function latestCheckout(invoiceId: string) {
+  const [row] = await getDb()
+    .select({ id: checkoutSessions.id, status: checkoutSessions.status, completedAt: checkoutSessions.completedAt })
+    .from(checkoutSessions)
+    .where(eq(checkoutSessions.invoiceId, invoiceId))
+    .orderBy(desc(checkoutSessions.createdAt))
+    .limit(1);
+  return row ?? null;
+}

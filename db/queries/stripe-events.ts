@@ -42,7 +42,7 @@ async function recordCardPayment(tx: Tx, event: Stripe.Event, s: Stripe.Checkout
       accountId: inv.accountId,
       method: "card",
       amountCents: amount,
-      reference: `Online card payment${intent ? ` ${intent}` : ""}`,
+      reference: "Online card payment",
       receivedAt: completedAt,
       recordedBy: session?.createdBy ?? null,
       checkoutSessionId: s.id,

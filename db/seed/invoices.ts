@@ -43,41 +43,41 @@ const PLANS: InvoicePlan[] = [
   // Brennan Township (PO required, tax exempt)
   { wo: "W-1001", account: "township", issuedDaysAgo: 27 },
   { wo: "W-1009", account: "township", issuedDaysAgo: 46, payments: [
-    { daysAgo: 20, method: "cheque", share: 400, reference: "Cheque 20417" },
+    { daysAgo: 20, method: "cheque", share: 400, reference: "20417" },
     { daysAgo: 6, method: "card", share: 1000, reference: "Online card payment", mismatch: true },
   ] },
   { wo: "W-1003", account: "township", issuedDaysAgo: 86 },
   { wo: "W-1002", account: "township", issuedDaysAgo: 112, voided: { issuedDaysAgo: 134, mistake: "old_po", reason: "Carried last fiscal year's PO number; re-issued with the current one." }, payments: [
-    { daysAgo: 70, method: "transfer", share: 500, reference: "Township ACH 7741" },
+    { daysAgo: 70, method: "transfer", share: 500, reference: "ACH 7741" },
   ] },
   { wo: "W-1005", account: "township", issuedDaysAgo: 143 },
-  { wo: "W-1011", account: "township", issuedDaysAgo: 55, payments: [{ daysAgo: 30, method: "transfer", share: "rest", reference: "Township ACH 7790" }] },
+  { wo: "W-1011", account: "township", issuedDaysAgo: 55, payments: [{ daysAgo: 30, method: "transfer", share: "rest", reference: "ACH 7790" }] },
   { wo: "W-1012", account: "township", issuedDaysAgo: 152, payments: [{ daysAgo: 125, method: "card", share: "rest", reference: "Online card payment" }] },
   { wo: "W-1004", account: "township", issuedDaysAgo: 187, payments: [
-    { daysAgo: 170, method: "cheque", share: 600, reference: "Cheque 19886" },
-    { daysAgo: 150, method: "cheque", share: "rest", reference: "Cheque 19954" },
+    { daysAgo: 170, method: "cheque", share: 600, reference: "19886" },
+    { daysAgo: 150, method: "cheque", share: "rest", reference: "19954" },
   ] },
-  { wo: "W-1006", account: "township", issuedDaysAgo: 196, payments: [{ daysAgo: 168, method: "cheque", share: "rest", reference: "Cheque 19870" }] },
-  { wo: "W-1008", account: "township", issuedDaysAgo: 249, payments: [{ daysAgo: 222, method: "transfer", share: "rest", reference: "Township ACH 7102" }] },
+  { wo: "W-1006", account: "township", issuedDaysAgo: 196, payments: [{ daysAgo: 168, method: "cheque", share: "rest", reference: "19870" }] },
+  { wo: "W-1008", account: "township", issuedDaysAgo: 249, payments: [{ daysAgo: 222, method: "transfer", share: "rest", reference: "ACH 7102" }] },
   // Alder Falls schools (tax exempt, no PO required)
   { wo: "W-1015", account: "schools", issuedDaysAgo: 21, voided: { issuedDaysAgo: 161, mistake: "no_po", reason: "The business office asked for its purchase order number on the invoice." } },
   { wo: "W-1014", account: "schools", issuedDaysAgo: 50, voided: { issuedDaysAgo: 205, mistake: "field_rate", reason: "Labour billed at the field-service rate; the work was done in the shop." }, payments: [
-    { daysAgo: 25, method: "cheque", share: 500, reference: "District cheque 55120" },
+    { daysAgo: 25, method: "cheque", share: 500, reference: "55120" },
   ] },
   { wo: "W-1019", account: "schools", issuedDaysAgo: 64 },
-  { wo: "W-1013", account: "schools", issuedDaysAgo: 108, payments: [{ daysAgo: 60, method: "transfer", share: 300, reference: "District EFT 3318" }] },
+  { wo: "W-1013", account: "schools", issuedDaysAgo: 108, payments: [{ daysAgo: 60, method: "transfer", share: 300, reference: "EFT 3318" }] },
   { wo: "W-1016", account: "schools", issuedDaysAgo: 214 },
-  { wo: "W-1018", account: "schools", issuedDaysAgo: 267, payments: [{ daysAgo: 240, method: "transfer", share: "rest", reference: "District EFT 2990" }] },
+  { wo: "W-1018", account: "schools", issuedDaysAgo: 267, payments: [{ daysAgo: 240, method: "transfer", share: "rest", reference: "EFT 2990" }] },
   { wo: "W-1017", account: "schools", issuedDaysAgo: 311, payments: [{ daysAgo: 290, method: "card", share: "rest", reference: "Online card payment" }] },
-  { wo: "W-1020", account: "schools", issuedDaysAgo: 320, payments: [{ daysAgo: 300, method: "cheque", share: "rest", reference: "District cheque 54007" }] },
+  { wo: "W-1020", account: "schools", issuedDaysAgo: 320, payments: [{ daysAgo: 300, method: "cheque", share: "rest", reference: "54007" }] },
   // Kettle Ridge Stone (taxable 6.25 %, net 30)
   { wo: "W-1022", account: "quarry", issuedDaysAgo: 12, voided: { issuedDaysAgo: 170, mistake: "tax_on_labour", reason: "Sales tax was charged on labour; only parts are taxed." } },
-  { wo: "W-1021", account: "quarry", issuedDaysAgo: 55, payments: [{ daysAgo: 15, method: "cheque", share: 450, reference: "Cheque 8812" }] },
+  { wo: "W-1021", account: "quarry", issuedDaysAgo: 55, payments: [{ daysAgo: 15, method: "cheque", share: 450, reference: "8812" }] },
   { wo: "W-1025", account: "quarry", issuedDaysAgo: 75, voided: { issuedDaysAgo: 179, mistake: "cores_came_back", reason: "Both chamber and slack-adjuster cores came back; re-issued without core charges." } },
   { wo: "W-1023", account: "quarry", issuedDaysAgo: 112, payments: [{ daysAgo: 80, method: "card", share: 250, reference: "Online card payment" }] },
   { wo: "W-1024", account: "quarry", issuedDaysAgo: 223 },
   { wo: "W-1026", account: "quarry", issuedDaysAgo: 232, payments: [{ daysAgo: 210, method: "card", share: "rest", reference: "Online card payment" }] },
-  { wo: "W-1027", account: "quarry", issuedDaysAgo: 329, payments: [{ daysAgo: 301, method: "cheque", share: "rest", reference: "Cheque 8120" }] },
+  { wo: "W-1027", account: "quarry", issuedDaysAgo: 329, payments: [{ daysAgo: 301, method: "cheque", share: "rest", reference: "8120" }] },
 ];
 
 function poFor(plan: InvoicePlan, issuedAt: string, n: number): string | null {
@@ -155,7 +155,7 @@ async function seedPayments(ctx: SeedContext, invoiceId: string, plans: PaymentP
       accountId: inv.accountId,
       method: p.method,
       amountCents: amount,
-      reference: intent ? `${p.reference} ${intent}` : p.reference,
+      reference: p.reference,
       receivedAt: daysAgo(ctx, p.daysAgo, 17),
       recordedBy: card ? (inv.accountId === id(ctx, "account:township") ? clerk : null) : writer,
       paymentIntentId: intent,

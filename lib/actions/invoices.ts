@@ -1,6 +1,7 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
+import { redirect } from "next/navigation";
 import { issueInvoice, markLinesDone, setWorkOrderPoNumber } from "@/db/queries/invoice-issue";
 import { recordManualPayment, resolveFlaggedPayment, voidInvoice } from "@/db/queries/payments";
 import { guardedAction } from "@/lib/auth/guarded-action";
@@ -32,7 +33,8 @@ export const issueInvoiceAction = guardedAction({ roles: CAN.issueInvoices, inpu
   const created = await issueInvoice(user, input.workOrderId, { poNumber: input.poNumber });
   void deliverLater(() => notifyInvoiceIssued(created.id));
   refreshInvoice(created.id, input.workOrderId);
-  return { id: created.id, number: created.number };
+  // The issue form disappears once the invoice exists, so go to the invoice from here.
+  redirect(`/invoices/${created.id}`);
 });
 
 export const markLinesDoneAction = guardedAction({ roles: CAN.issueInvoices, input: markLinesDoneInput }, async ({ user, input }) => {
@@ -70,7 +72,8 @@ export const voidInvoiceAction = guardedAction({ roles: CAN.issueInvoices, input
   // Close any payment page still open for it; a payment that slips through is held for review anyway.
   void deliverLater(() => Promise.allSettled(result.openCheckoutSessionIds.map(expireCheckoutSession)));
   refreshInvoice(input.invoiceId, result.workOrderId);
-  return result;
+  // Next step is the corrected invoice, issued from the work order.
+  redirect(`/work-orders/${result.workOrderId}#invoice`);
 });
 
 export const resolvePaymentAction = guardedAction({ roles: CAN.issueInvoices, input: resolvePaymentInput }, async ({ user, input }) => {

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { WorkOrderInvoice } from "@/components/invoices/work-order-invoice";
 import { Card, CardTitle } from "@/components/ui/card";
 import { ConcernList } from "@/components/work-order/concern-list";
 import { Timeline } from "@/components/work-order/timeline";
@@ -26,6 +27,7 @@ export default async function ShopWorkOrderPage({ params }: { params: Promise<{ 
           </Card>
         </div>
         <div className="flex flex-col gap-4">
+          <WorkOrderInvoice workOrderId={wo.id} user={user} />
           <Card>
             <CardTitle>Timeline</CardTitle>
             <Timeline entries={timeline} />
