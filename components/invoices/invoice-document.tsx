@@ -135,7 +135,7 @@ export function InvoiceDocument({ invoice: inv, timeZone }: { invoice: InvoiceDe
       <footer className="mt-4 border-t border-rule pt-2 text-sm text-ink-soft">
         {inv.paymentState === "void" ? (
           <p className="font-semibold text-rust-deep">
-            Void{inv.voidReason ? `: ${inv.voidReason}` : ""}. Nothing is owed on this invoice.
+            Void{inv.voidReason ? `: ${inv.voidReason.replace(/[.\s]+$/, "")}` : ""}. Nothing is owed on this invoice.
           </p>
         ) : (
           <p>

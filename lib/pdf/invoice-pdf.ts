@@ -3,7 +3,7 @@ import { LINE_KIND_LABELS, type LineKind } from "@/lib/domain";
 import { formatDate } from "@/lib/format";
 import { PAYMENT_STATE_LABELS, type PaymentState } from "@/lib/invoices/balance";
 import type { BillTo, ShopSnapshot, UnitSnapshot } from "@/lib/invoices/snapshot";
-import { formatQuantityOf } from "@/lib/invoices/format";
+import { formatQuantityOf, PAYMENT_METHOD_LABELS } from "@/lib/invoices/format";
 import { formatCents } from "@/lib/money";
 
 /** What the PDF shows; the invoice detail read satisfies it. */
@@ -183,7 +183,7 @@ export function renderInvoicePdf(inv: InvoiceDocument, timeZone: string): Promis
     doc.font("Helvetica").fillColor(INK);
     for (const p of inv.payments) {
       const held = !p.applied ? (p.resolution === "returned" ? " (returned to the payer)" : " (held for review)") : "";
-      doc.text(`${formatDate(p.receivedAt, timeZone)}  ${p.method}  ${p.reference}${held}`, LEFT, y, { width: 400 });
+      doc.text(`${formatDate(p.receivedAt, timeZone)}  ${PAYMENT_METHOD_LABELS[p.method] ?? p.method}  ${p.reference}${held}`, LEFT, y, { width: 400 });
       doc.text(money(p.amountCents), 480, y, { width: RIGHT - 480, align: "right" });
       y += 13;
     }
@@ -197,7 +197,7 @@ export function renderInvoicePdf(inv: InvoiceDocument, timeZone: string): Promis
   }
   doc.font("Helvetica").fontSize(9).fillColor(INK);
   if (inv.paymentState === "void") {
-    doc.font("Helvetica-Bold").fillColor(RUST).text(`VOID${inv.voidReason ? `: ${inv.voidReason}` : ""}. Nothing is owed on this invoice.`, LEFT, y, { width: RIGHT - LEFT });
+    doc.font("Helvetica-Bold").fillColor(RUST).text(`VOID${inv.voidReason ? `: ${inv.voidReason.replace(/[.\s]+$/, "")}` : ""}. Nothing is owed on this invoice.`, LEFT, y, { width: RIGHT - LEFT });
   } else {
     doc.text(`Terms: net ${inv.termsDays} days. Please pay by ${formatDate(inv.dueAt)}, quoting ${inv.label}${inv.poNumber ? ` and PO ${inv.poNumber}` : ""}.`, LEFT, y, {
       width: RIGHT - LEFT,
