@@ -1,6 +1,7 @@
 import { openDatabase } from "@/db/client";
 import { shopSettings } from "@/db/schema";
 import { seedAccounts } from "./accounts";
+import { seedEstimates } from "./estimates";
 import type { SeedContext } from "./context";
 import { demoPasswordHash, seedShop } from "./shop";
 import { seedUnits } from "./units";
@@ -22,6 +23,7 @@ export async function seedDatabase(url: string, options: { ifEmpty?: boolean; au
       await seedAccounts(ctx, passwordHash);
       await seedUnits(ctx);
       await seedWorkOrders(ctx);
+      await seedEstimates(ctx);
     });
     return { seeded: true as const };
   } finally {
