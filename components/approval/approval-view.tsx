@@ -3,7 +3,10 @@
 import { useState } from "react";
 import useSWR from "swr";
 import { ApiError, fetchJson, LIVE_REFRESH_MS } from "@/components/data/fetcher";
+import { DecisionLog } from "@/components/estimate/decision-log";
 import { TotalsBar } from "@/components/estimate/totals-bar";
+import { Card, CardTitle } from "@/components/ui/card";
+import { Timeline } from "@/components/work-order/timeline";
 import { Button } from "@/components/ui/button";
 import type { WorkOrderView } from "@/db/queries/work-order-view";
 import type { Decision } from "@/lib/domain";
@@ -56,7 +59,10 @@ export function ApprovalView({
       });
       setBanner({ kind: "ok", text: success });
     } catch (error) {
-      const text = error instanceof ApiError ? error.message : "Cotter could not be reached. Nothing was decided; try again.";
+      let text = error instanceof ApiError ? error.message : "Cotter could not be reached. Nothing was decided; try again.";
+      if (error instanceof ApiError && error.code === "signing_limit_exceeded") {
+        text += " Another approver on your account with a higher signing limit can approve it.";
+      }
       const refusedLine = error instanceof ApiError ? ((error.body as { lineId?: string } | null)?.lineId ?? lineId) : lineId;
       if (refusedLine) setRefusals((r) => ({ ...r, [refusedLine]: text }));
       setBanner({ kind: "refused", text });
@@ -124,6 +130,14 @@ export function ApprovalView({
         );
       })}
       <TotalsBar totals={view.totals} ifAllPendingApprovedCents={view.estimateTotals.ifAllPendingApprovedCents} taxExempt={taxExempt} />
+      <Card>
+        <CardTitle>Decisions</CardTitle>
+        <DecisionLog entries={view.decisionLog} describe={(lineId) => view.lines.find((l) => l.id === lineId)?.description ?? "Removed line"} />
+      </Card>
+      <Card>
+        <CardTitle>Updates from the shop</CardTitle>
+        <Timeline entries={view.timeline} />
+      </Card>
     </div>
   );
 }
