@@ -2,6 +2,7 @@ import { openDatabase } from "@/db/client";
 import { shopSettings } from "@/db/schema";
 import { seedAccounts } from "./accounts";
 import type { SeedContext } from "./context";
+import { seedOccurrences } from "./occurrences";
 import { demoPasswordHash, seedShop } from "./shop";
 import { seedUnits } from "./units";
 import { seedWorkOrders } from "./work-orders";
@@ -22,6 +23,7 @@ export async function seedDatabase(url: string, options: { ifEmpty?: boolean; au
       await seedAccounts(ctx, passwordHash);
       await seedUnits(ctx);
       await seedWorkOrders(ctx);
+      await seedOccurrences(ctx);
     });
     return { seeded: true as const };
   } finally {
