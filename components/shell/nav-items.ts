@@ -6,5 +6,8 @@ export function shopNav(_role: Role): NavItem[] {
 }
 
 export function fleetNav(_role: Role): NavItem[] {
-  return [{ href: "/fleet", label: "Units" }];
+  return [
+    { href: "/fleet", label: "Units" },
+    { href: "/fleet/occurrences", label: "Occurrence log" },
+  ];
 }

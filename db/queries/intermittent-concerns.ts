@@ -1,4 +1,4 @@
-import { and, count, desc, eq, inArray, isNotNull, isNull, max, ne } from "drizzle-orm";
+import { and, count, desc, eq, inArray, isNull, max, ne } from "drizzle-orm";
 import { getDb, writeTx } from "@/db/client";
 import { accounts, concerns, occurrences, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -134,9 +134,11 @@ export async function watchedConcerns(user: SessionUser, opts: { unitId?: string
         .where(inArray(occurrences.concernId, visible.map((r) => r.id)))
         .groupBy(occurrences.concernId)
     : [];
+  const now = Date.now();
   const withStats = visible.map((r) => {
     const s = stats.find((x) => x.concernId === r.id);
-    return { ...r, count: s?.n ?? 0, lastAt: s?.last ?? null };
+    const lastAt = s?.last ?? null;
+    return { ...r, count: s?.n ?? 0, lastAt, daysSinceLast: lastAt ? Math.max(0, Math.floor((now - Date.parse(lastAt)) / 86_400_000)) : null };
   });
   return { open: withStats.filter((r) => !r.closedAt), closed: withStats.filter((r) => r.closedAt) };
 }
@@ -152,12 +154,4 @@ export async function openVisitOf(unitId: string) {
     .where(and(eq(workOrders.unitId, unitId), ne(workOrders.status, "released")))
     .limit(1);
   return row ?? null;
-}
-
-export async function hasClosedIntermittent(unitId: string) {
-  const [row] = await getDb()
-    .select({ n: count() })
-    .from(concerns)
-    .where(and(eq(concerns.unitId, unitId), eq(concerns.intermittent, true), isNotNull(concerns.closedAt)));
-  return (row?.n ?? 0) > 0;
 }

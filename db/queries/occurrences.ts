@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, inArray, isNull, lt, or } from "drizzle-orm";
 import { getDb, writeTx, type Tx } from "@/db/client";
-import { concerns, occurrences, photos, units, users } from "@/db/schema";
+import { concerns, occurrences, photos, units, users, workOrders } from "@/db/schema";
 import { isStaff } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { nowIso } from "@/lib/ids";
@@ -84,8 +84,9 @@ const concernColumns = {
 /** Intermittent concerns on a unit (open first, then closed newest first), across every visit. */
 export async function unitIntermittentConcerns(unitId: string) {
   const rows = await getDb()
-    .select(concernColumns)
+    .select({ ...concernColumns, workOrderNumber: workOrders.number })
     .from(concerns)
+    .leftJoin(workOrders, eq(workOrders.id, concerns.workOrderId))
     .where(and(eq(concerns.unitId, unitId), eq(concerns.intermittent, true)))
     .orderBy(desc(concerns.createdAt));
   return [...rows.filter((c) => !c.closedAt), ...rows.filter((c) => c.closedAt).sort((a, b) => (b.closedAt ?? "").localeCompare(a.closedAt ?? ""))];

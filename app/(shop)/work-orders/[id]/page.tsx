@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { WorkOrderOccurrences } from "@/components/occurrences/work-order-occurrences";
 import { Card, CardTitle } from "@/components/ui/card";
 import { ConcernList } from "@/components/work-order/concern-list";
 import { Timeline } from "@/components/work-order/timeline";
@@ -24,6 +25,7 @@ export default async function ShopWorkOrderPage({ params }: { params: Promise<{ 
             <CardTitle>Concerns</CardTitle>
             <ConcernList concerns={concerns} />
           </Card>
+          <WorkOrderOccurrences workOrderId={wo.id} unitId={wo.unitId} />
         </div>
         <div className="flex flex-col gap-4">
           <Card>
