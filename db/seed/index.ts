@@ -1,6 +1,7 @@
 import { openDatabase } from "@/db/client";
 import { shopSettings } from "@/db/schema";
 import { seedAccounts } from "./accounts";
+import { seedEstimates } from "./estimates";
 import type { SeedContext } from "./context";
 import { seedOccurrences } from "./occurrences";
 import { demoPasswordHash, seedShop } from "./shop";
@@ -23,6 +24,7 @@ export async function seedDatabase(url: string, options: { ifEmpty?: boolean; au
       await seedAccounts(ctx, passwordHash);
       await seedUnits(ctx);
       await seedWorkOrders(ctx);
+      await seedEstimates(ctx);
       await seedOccurrences(ctx);
     });
     return { seeded: true as const };
