@@ -16,8 +16,18 @@ export function FleetOccurrenceLog({ unitId, initial, meId }: { unitId: string; 
   const log = data ?? initial;
   const open = log.concerns.filter((c) => !c.closedAt);
   const closed = log.concerns.filter((c) => c.closedAt);
+  const conclusions = closed.map((c) => (
+    <Card key={c.id} data-testid="fleet-conclusion">
+      <CardTitle>The shop found the cause</CardTitle>
+      <p className="text-sm text-ink-faint">
+        {c.complaint} · closed {formatDate(c.closedAt)}
+      </p>
+      <p className="mt-1">{c.conclusion}</p>
+    </Card>
+  ));
   return (
     <div className="flex flex-col gap-4">
+      {open.length === 0 ? conclusions : null}
       <Card>
         <CardTitle>Log an occurrence</CardTitle>
         {open.length === 0 ? (
@@ -29,15 +39,7 @@ export function FleetOccurrenceLog({ unitId, initial, meId }: { unitId: string; 
         ) : null}
         <OccurrenceForm unitId={unitId} concerns={open.map((c) => ({ id: c.id, complaint: c.complaint, recordHint: c.recordHint }))} onLogged={() => void mutate()} />
       </Card>
-      {closed.map((c) => (
-        <Card key={c.id} data-testid="fleet-conclusion">
-          <CardTitle>The shop found the cause</CardTitle>
-          <p className="text-sm text-ink-faint">
-            {c.complaint} · closed {formatDate(c.closedAt)}
-          </p>
-          <p className="mt-1">{c.conclusion}</p>
-        </Card>
-      ))}
+      {open.length > 0 ? conclusions : null}
       <Card>
         <CardTitle>Your log ({log.occurrences.length})</CardTitle>
         <OccurrenceList entries={log.occurrences} unit={unit} meId={meId} empty="Nothing logged on this unit yet." />

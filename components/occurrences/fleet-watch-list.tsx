@@ -28,7 +28,9 @@ export async function FleetWatchList({ user, unitId, compact = false }: { user: 
             <li key={c.id} className="flex flex-col gap-2 rounded-card border-2 border-ink bg-paper-card p-4" data-testid="watched-concern">
               <p className="text-sm font-semibold tracking-wide text-ink-faint uppercase">{c.unitNumber}</p>
               <p className="font-bold">{c.complaint}</p>
-              {c.recordHint && !compact ? <p className="text-sm">Note: {c.recordHint}</p> : null}
+              {c.recordHint && (unitId || !compact) ? <p className="text-sm">
+                  <span className="font-semibold">What to record:</span> {c.recordHint}
+                </p> : null}
               <p className="figures text-sm text-ink-faint">
                 {c.count} logged{c.count ? ` · last one ${daysSincePhrase(c.daysSinceLast)}` : ""}
               </p>

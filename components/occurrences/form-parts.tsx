@@ -30,14 +30,14 @@ export function Chips<T extends string>({
             type="button"
             aria-pressed={on}
             onClick={() => onChange(on && allowClear ? "" : o.value)}
-            className={`min-h-12 rounded-card border-2 px-3 py-2 text-left font-semibold ${
+            className={`flex min-h-12 items-center gap-1 rounded-card border-2 px-2 py-2 text-left leading-tight font-semibold ${
               on ? "border-ink bg-ink text-paper" : "border-rule-strong bg-white text-ink"
             }`}
           >
-            <span aria-hidden className="mr-1 inline-block w-4">
+            <span aria-hidden className="w-4 shrink-0 text-center">
               {on ? "✓" : ""}
             </span>
-            {o.label}
+            <span>{o.label}</span>
           </button>
         );
       })}

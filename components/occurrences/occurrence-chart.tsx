@@ -2,7 +2,6 @@
 
 import {
   CartesianGrid,
-  Legend,
   ReferenceArea,
   ReferenceLine,
   ResponsiveContainer,
@@ -46,6 +45,7 @@ export function OccurrenceChart({ entries, unit, summary }: { entries: Occurrenc
   const step = unit === "F" ? 10 : 5;
   const yMin = Math.floor(Math.min(...temps, summary.temperature.threshold ?? Infinity, unit === "F" ? 0 : -20) / step) * step - step;
   const yMax = Math.ceil(Math.max(...temps, summary.temperature.threshold ?? -Infinity, unit === "F" ? 40 : 5) / step) * step;
+  const yTicks = Array.from({ length: (yMax - yMin) / step + 1 }, (_, i) => yMin + i * step);
   const xMax = Math.max(24, Math.ceil(Math.max(...plotted.map((p) => p.hours), 0) / 12) * 12);
   const xTicks = Array.from({ length: xMax / 12 + 1 }, (_, i) => i * 12);
   const hThreshold = summary.parked.threshold;
@@ -88,17 +88,31 @@ export function OccurrenceChart({ entries, unit, summary }: { entries: Occurrenc
               name="Outside"
               unit={`°${unit}`}
               domain={[yMin, yMax]}
+              ticks={yTicks}
               width={56}
               tick={{ fill: INK, fontSize: 12 }}
             />
             <Tooltip content={({ active, payload }) => <PointTip active={active} payload={payload} unit={unit} />} cursor={{ strokeDasharray: "3 3" }} />
-            <Legend verticalAlign="top" height={28} wrapperStyle={{ fontSize: 13 }} />
             {series.map((s) => (
               <Scatter key={s.name} name={s.name} data={s.data} fill={s.fill} stroke={INK} strokeWidth={2} shape={s.shape} isAnimationActive={false} />
             ))}
           </ScatterChart>
         </ResponsiveContainer>
       </div>
+      <ul className="mt-1 flex flex-wrap gap-x-4 gap-y-1 text-sm" aria-label="Key">
+        {series.map((s) => (
+          <li key={s.name} className="flex items-center gap-1.5">
+            <svg width="14" height="14" viewBox="0 0 14 14" aria-hidden>
+              {s.shape === "diamond" ? (
+                <path d="M7 1 L13 7 L7 13 L1 7 Z" fill={s.fill} stroke={INK} strokeWidth="2" />
+              ) : (
+                <circle cx="7" cy="7" r="5.5" fill={s.fill} stroke={INK} strokeWidth="2" />
+              )}
+            </svg>
+            {s.name} ({s.data.length})
+          </li>
+        ))}
+      </ul>
       <figcaption className="mt-1 text-sm text-ink-faint">
         Each mark is one entry. The shaded corner is past both thresholds in the summary.
         {missing > 0 ? ` ${missing} ${missing === 1 ? "entry has" : "entries have"} no parked time or temperature and ${missing === 1 ? "is" : "are"} only in the list.` : ""}

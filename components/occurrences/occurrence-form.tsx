@@ -1,6 +1,6 @@
 "use client";
 
-import { useEffect, useState, useSyncExternalStore } from "react";
+import { useEffect, useRef, useState, useSyncExternalStore } from "react";
 import { useNow } from "@/components/data/use-now";
 import { inputClass } from "@/components/forms/field";
 import { Button } from "@/components/ui/button";
@@ -64,6 +64,7 @@ function OccurrenceFormInner({ unitId, concerns, onLogged }: { unitId: string; c
   const [showRestored, setShowRestored] = useState(restored !== null);
   const [errors, setErrors] = useState<Partial<Record<DraftField, string>>>({});
   const [status, setStatus] = useState<Status>({ kind: "idle" });
+  const temperatureInput = useRef<HTMLInputElement>(null);
 
   // Every keystroke is kept on the phone, so a lost signal or a closed tab loses nothing.
   useEffect(() => {
@@ -128,6 +129,16 @@ function OccurrenceFormInner({ unitId, concerns, onLogged }: { unitId: string; c
     }
   }
 
+  // After ±, the keypad opens on the temperature with the caret after the sign, ready for the digits.
+  function flipSign() {
+    const next = toggleSign(draft.temperature);
+    set("temperature", next);
+    const el = temperatureInput.current;
+    if (!el) return;
+    el.focus();
+    requestAnimationFrame(() => el.setSelectionRange(next.length, next.length));
+  }
+
   const concern = concerns.find((c) => c.id === draft.concernId) ?? null;
   const now = useNow(30_000);
   const sending = status.kind === "sending";
@@ -188,10 +199,10 @@ function OccurrenceFormInner({ unitId, concerns, onLogged }: { unitId: string; c
 
       <Question id="temperature" label="Outside temperature" error={errors.temperature}>
         <span className="flex flex-wrap items-center gap-2">
-          <Button type="button" variant="secondary" aria-label="Below zero: switch the minus sign" className="min-w-touch text-xl" onClick={() => set("temperature", toggleSign(draft.temperature))}>
+          <Button type="button" variant="secondary" aria-label="Below zero: switch the minus sign" className="min-w-touch text-xl" onClick={flipSign}>
             ±
           </Button>
-          <TypedNumber aria-label="Outside temperature" unit={`°${draft.unit}`} value={draft.temperature} onChange={(e) => set("temperature", e.target.value)} error={errors.temperature} placeholder="e.g. 18" />
+          <TypedNumber ref={temperatureInput} aria-label="Outside temperature" unit={`°${draft.unit}`} value={draft.temperature} onChange={(e) => set("temperature", e.target.value)} error={errors.temperature} placeholder="e.g. 18" />
           <UnitToggle unit={draft.unit} onChange={(u) => { set("unit", u); setPreferredUnit(u); }} />
         </span>
       </Question>
@@ -208,24 +219,27 @@ function OccurrenceFormInner({ unitId, concerns, onLogged }: { unitId: string; c
         <textarea aria-label="Anything else" rows={2} maxLength={1000} className={`${inputClass} py-2`} value={draft.note} onChange={(e) => set("note", e.target.value)} placeholder="What you tried, who saw it" />
       </Question>
 
-      <div aria-live="polite" className="flex flex-col gap-2">
-        {status.kind === "failed" ? (
-          <p role="alert" className="rounded-card border-2 border-rust bg-rust-wash px-3 py-2 font-semibold text-rust-deep" data-testid="send-failed">
-            {status.message}
-          </p>
-        ) : null}
-        {status.kind === "invalid" ? (
-          <p role="alert" className="font-semibold text-rust-deep">Not sent: check the marked answers.</p>
-        ) : null}
-        {status.kind === "sent" ? (
-          <p role="status" className="rounded-card border-2 border-ink bg-paper-card px-3 py-2 font-semibold" data-testid="send-ok">
-            Logged for {formatDateTime(status.at)}. The shop has been told. Thank you.
-          </p>
-        ) : null}
+      {/* Status and Send stay in reach of a thumb at the foot of the screen. */}
+      <div className="sticky bottom-0 -mx-4 flex flex-col gap-2 border-t border-rule bg-paper-card/95 px-4 pt-2 pb-3">
+        <div aria-live="polite" className="flex flex-col gap-2">
+          {status.kind === "failed" ? (
+            <p role="alert" className="rounded-card border-2 border-rust bg-rust-wash px-3 py-2 font-semibold text-rust-deep" data-testid="send-failed">
+              {status.message}
+            </p>
+          ) : null}
+          {status.kind === "invalid" ? (
+            <p role="alert" className="font-semibold text-rust-deep">Not sent: check the marked answers.</p>
+          ) : null}
+          {status.kind === "sent" ? (
+            <p role="status" className="rounded-card border-2 border-ink bg-paper-card px-3 py-2 font-semibold" data-testid="send-ok">
+              Logged for {formatDateTime(status.at)}. The shop has been told. Thank you.
+            </p>
+          ) : null}
+        </div>
+        <Button type="submit" disabled={sending} className="min-h-14 w-full text-lg">
+          {sending ? "Sending…" : "Send to the shop"}
+        </Button>
       </div>
-      <Button type="submit" disabled={sending} className="min-h-14 w-full text-lg">
-        {sending ? "Sending…" : "Send to the shop"}
-      </Button>
     </form>
   );
 }

@@ -6,11 +6,11 @@ export function PatternSummaryView({ summary }: { summary: PatternSummary }) {
     <div className="grid gap-3 sm:grid-cols-[1fr_auto]">
       <div>
         <p className="text-lg leading-snug font-bold" data-testid="pattern-headline">
-          {summary.headline}
+          {keepUnitsTogether(summary.headline)}
         </p>
         <ul className="mt-1 flex flex-col gap-0.5 text-sm text-ink-soft">
           {summary.lines.map((l) => (
-            <li key={l}>{l}</li>
+            <li key={l}>{keepUnitsTogether(l)}</li>
           ))}
         </ul>
       </div>
@@ -30,4 +30,9 @@ export function PatternSummaryView({ summary }: { summary: PatternSummary }) {
       </dl>
     </div>
   );
+}
+
+/** "25 °F" and "10 h" never break across lines. */
+function keepUnitsTogether(text: string): string {
+  return text.replace(/(\d) (°[FC]|h\b|V\b)/g, "$1\u00a0$2");
 }
