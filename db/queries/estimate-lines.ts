@@ -1,5 +1,5 @@
 import { and, eq, inArray, isNull, ne, sql } from "drizzle-orm";
-import { writeTx, type Tx } from "@/db/client";
+import { writeTx, type Reader, type Tx } from "@/db/client";
 import { concerns, estimateLines, statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { isApprovedState, reviseLine } from "@/lib/estimate";
@@ -64,7 +64,15 @@ export async function addLine(user: SessionUser, input: NewLineInput) {
   });
 }
 
-export type EditOutcome = { line: typeof estimateLines.$inferSelect; outcome: string; reason: string | null; workOrderId: string; accountId: string; woNumber: number };
+export type EditOutcome = {
+  line: typeof estimateLines.$inferSelect;
+  outcome: string;
+  reason: string | null;
+  previousApprovedCents: number | null;
+  workOrderId: string;
+  accountId: string;
+  woNumber: number;
+};
 
 /**
  * Edits a line. Drafts and lines waiting on a decision change freely (the
@@ -135,7 +143,15 @@ export async function editLine(user: SessionUser, input: EditLineInput): Promise
       accountId: ctx.wo.accountId,
       detail: { from: { q: line.quantityMilli, p: line.unitPriceCents, state: line.state }, to: { q: input.quantity, p: input.unitPrice, state: revised.line.state }, outcome: revised.outcome },
     });
-    return { line: row!, outcome: revised.outcome, reason: revised.reason?.detail ?? null, workOrderId: ctx.wo.id, accountId: ctx.wo.accountId, woNumber: ctx.wo.number };
+    return {
+      line: row!,
+      outcome: revised.outcome,
+      reason: revised.reason?.detail ?? null,
+      previousApprovedCents: line.approvedAmountCents,
+      workOrderId: ctx.wo.id,
+      accountId: ctx.wo.accountId,
+      woNumber: ctx.wo.number,
+    };
   });
 }
 
@@ -175,7 +191,7 @@ export async function moveLine(user: SessionUser, lineId: string, direction: "up
 }
 
 /** Held and declined lines of the unit's earlier visits that no later visit has brought back. */
-export async function deferredLinesForUnit(tx: Tx, unitId: string, exceptWorkOrderId: string) {
+export async function deferredLinesForUnit(tx: Reader, unitId: string, exceptWorkOrderId: string) {
   return tx
     .select()
     .from(estimateLines)
