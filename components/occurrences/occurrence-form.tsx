@@ -168,7 +168,7 @@ function OccurrenceFormInner({ unitId, concerns, onLogged }: { unitId: string; c
       ) : null}
       {concern?.recordHint ? (
         <p className="rounded-card bg-paper-deep p-3">
-          <span className="block text-sm font-semibold text-ink-faint">The shop asks you to note</span>
+          <span className="block text-sm font-semibold text-ink-faint">What the shop asks you to record</span>
           {concern.recordHint}
         </p>
       ) : null}

@@ -181,6 +181,12 @@ describe("occurrence log, in Chromium", () => {
     await page.getByTestId("occurrence-chart").locator(".recharts-symbols").first().waitFor();
     await noSidewaysScroll(page);
     await screenshot(page, "concern-page-tech-phone");
+    // The shop's unit page lists the open intermittent concern with its pattern, linking to this page.
+    await page.goto(`/units/${t9.id}`);
+    const onUnit = page.getByTestId("unit-intermittent-concerns");
+    expect(await onUnit.innerText()).toMatch(/after more than \d+\sh\sparked/);
+    await onUnit.getByRole("link", { name: /Cranks slowly/ }).click();
+    await page.waitForURL(/\/concerns\//);
     await context.close();
 
     const other = await newContext(browser, PHONE);
