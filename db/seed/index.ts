@@ -3,6 +3,7 @@ import { shopSettings } from "@/db/schema";
 import { seedAccounts } from "./accounts";
 import { seedEstimates } from "./estimates";
 import type { SeedContext } from "./context";
+import { seedOccurrences } from "./occurrences";
 import { demoPasswordHash, seedShop } from "./shop";
 import { seedUnits } from "./units";
 import { seedWorkOrders } from "./work-orders";
@@ -24,6 +25,7 @@ export async function seedDatabase(url: string, options: { ifEmpty?: boolean; au
       await seedUnits(ctx);
       await seedWorkOrders(ctx);
       await seedEstimates(ctx);
+      await seedOccurrences(ctx);
     });
     return { seeded: true as const };
   } finally {

@@ -4,6 +4,7 @@ import { DecisionLog } from "@/components/estimate/decision-log";
 import { DeferredOfferPanel } from "@/components/estimate/deferred-offer";
 import { EstimateEditor } from "@/components/estimate/estimate-editor";
 import { TimeClock } from "@/components/estimate/time-clock";
+import { WorkOrderOccurrences } from "@/components/occurrences/work-order-occurrences";
 import { Card, CardTitle } from "@/components/ui/card";
 import { ConcernList } from "@/components/work-order/concern-list";
 import { Timeline } from "@/components/work-order/timeline";
@@ -42,6 +43,7 @@ export default async function ShopWorkOrderPage({ params }: { params: Promise<{ 
             </Card>
           </div>
         </div>
+        <WorkOrderOccurrences workOrderId={view.id} unitId={view.unitId} />
         {canPrice ? (
           <Card>
             <CardTitle>Estimate</CardTitle>

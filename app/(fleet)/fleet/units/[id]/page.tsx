@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { LiveUnitStatus } from "@/components/fleet/live-unit-status";
+import { FleetWatchList } from "@/components/occurrences/fleet-watch-list";
 import { ButtonLink } from "@/components/ui/button";
 import { Card, CardTitle } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
@@ -38,6 +39,7 @@ export default async function FleetUnitPage({ params }: { params: Promise<{ id: 
       ) : null}
       <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
         <div className="flex flex-col gap-4">
+          <FleetWatchList user={user} unitId={unit.id} compact />
           <Card>
             <CardTitle>Visits</CardTitle>
             <WorkOrderHistory rows={history} hrefFor={(woId) => `/fleet/work-orders/${woId}`} />
