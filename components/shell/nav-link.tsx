@@ -3,10 +3,9 @@
 import Link from "next/link";
 import { usePathname } from "next/navigation";
 
-export function NavLink({ href, activeUnder, children }: { href: string; activeUnder?: string[]; children: React.ReactNode }) {
+export function NavLink({ href, children, exact = false }: { href: string; children: React.ReactNode; exact?: boolean }) {
   const pathname = usePathname();
-  const under = activeUnder ?? (href === "/" ? [] : [href]);
-  const active = pathname === href || under.some((prefix) => pathname.startsWith(`${prefix}/`));
+  const active = pathname === href || (!exact && href !== "/" && pathname.startsWith(`${href}/`));
   return (
     <Link
       href={href}

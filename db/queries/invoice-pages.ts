@@ -70,6 +70,8 @@ export async function readyToInvoice(user: SessionUser) {
     .where(
       and(
         scopedTo(workOrders.accountId, user),
+        // Visits still being worked on are invoiced when they reach final check.
+        inArray(workOrders.status, ["final_check", "ready", "released"]),
         exists(getDb().select({ one: sql`1` }).from(estimateLines).where(and(eq(estimateLines.workOrderId, workOrders.id), eq(estimateLines.state, "done")))),
         notExists(liveInvoice(workOrders.id)),
       ),

@@ -1,8 +1,10 @@
 import { openDatabase } from "@/db/client";
 import { shopSettings } from "@/db/schema";
 import { seedAccounts } from "./accounts";
+import { seedEstimates } from "./estimates";
 import { seedInvoices } from "./invoices";
 import type { SeedContext } from "./context";
+import { seedOccurrences } from "./occurrences";
 import { demoPasswordHash, seedShop } from "./shop";
 import { seedUnits } from "./units";
 import { seedWorkOrders } from "./work-orders";
@@ -23,7 +25,10 @@ export async function seedDatabase(url: string, options: { ifEmpty?: boolean; au
       await seedAccounts(ctx, passwordHash);
       await seedUnits(ctx);
       await seedWorkOrders(ctx);
+      // Past visits' billed work first, so the estimates step sets budgets with it counted.
       await seedInvoices(ctx);
+      await seedEstimates(ctx);
+      await seedOccurrences(ctx);
     });
     return { seeded: true as const };
   } finally {

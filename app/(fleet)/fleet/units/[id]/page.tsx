@@ -1,6 +1,8 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { LiveUnitStatus } from "@/components/fleet/live-unit-status";
+import { FleetWatchList } from "@/components/occurrences/fleet-watch-list";
+import { ButtonLink } from "@/components/ui/button";
 import { Card, CardTitle } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { DeferredWork } from "@/components/units/deferred-work";
@@ -28,11 +30,19 @@ export default async function FleetUnitPage({ params }: { params: Promise<{ id: 
           initial={{ status: openWorkOrder?.status ?? null, workOrderId: openWorkOrder?.id ?? null }}
         />
       </PageHeader>
+      {openWorkOrder ? (
+        <p className="mb-4">
+          <ButtonLink href={`/fleet/work-orders/${openWorkOrder.id}`} data-testid="open-estimate">
+            {openWorkOrder.status === "waiting_approval" ? "Review the estimate and decide" : "See this visit's estimate"}
+          </ButtonLink>
+        </p>
+      ) : null}
       <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
         <div className="flex flex-col gap-4">
+          <FleetWatchList user={user} unitId={unit.id} compact />
           <Card>
             <CardTitle>Visits</CardTitle>
-            <WorkOrderHistory rows={history} />
+            <WorkOrderHistory rows={history} hrefFor={(woId) => `/fleet/work-orders/${woId}`} />
           </Card>
           <Card>
             <CardTitle>Deferred work</CardTitle>
