@@ -25,7 +25,7 @@ export function RecordPaymentForm({ invoiceId, balanceCents, today }: { invoiceI
           <option value="cash">Cash</option>
         </select>
       </label>
-      <div className="grid gap-3 sm:grid-cols-2">
+      <div className="grid gap-3">
         <Field label="Amount ($)" name="amount" inputMode="decimal" required defaultValue={decimalDollars(balanceCents)} error={errors?.amount} />
         <Field label="Received on" name="receivedOn" type="date" required defaultValue={today} max={today} error={errors?.receivedOn} />
       </div>
