@@ -13,6 +13,7 @@ import {
   WORK_ORDER_STATUSES,
 } from "@/lib/domain";
 import { newId } from "@/lib/ids";
+import type { BillTo, ShopSnapshot, UnitSnapshot } from "@/lib/invoices/snapshot";
 
 /*
  * Conventions: ids are random text; times are ISO 8601 UTC text; calendar
@@ -373,7 +374,10 @@ export const invoices = sqliteTable(
     status: text("status", { enum: INVOICE_STATUSES }).notNull().default("open"),
     poNumber: text("po_number"),
     // Snapshot of who is billed, so an issued invoice never changes.
-    billTo: text("bill_to", { mode: "json" }).notNull(),
+    billTo: text("bill_to", { mode: "json" }).$type<BillTo>().notNull(),
+    // Snapshots of the issuing shop and of the unit and visit billed, for the same reason.
+    shopSnapshot: text("shop_snapshot", { mode: "json" }).$type<ShopSnapshot>(),
+    unitSnapshot: text("unit_snapshot", { mode: "json" }).$type<UnitSnapshot>(),
     taxExemptCertificate: text("tax_exempt_certificate"),
     taxRateMilliPct: integer("tax_rate_milli_pct").notNull().default(0),
     termsDays: integer("terms_days").notNull(),
@@ -399,6 +403,8 @@ export const invoices = sqliteTable(
   },
   (t) => [
     uniqueIndex("invoices_number_unique").on(t.number),
+    // At most one live invoice per work order: a correction voids it first.
+    uniqueIndex("invoices_one_live_per_wo").on(t.workOrderId).where(sql`status <> 'void'`),
     index("invoices_account_status_idx").on(t.accountId, t.status),
     index("invoices_wo_idx").on(t.workOrderId),
   ],
@@ -413,6 +419,7 @@ export const invoiceLines = sqliteTable(
     position: integer("position").notNull(),
     kind: text("kind", { enum: LINE_KINDS }).notNull(),
     description: text("description").notNull(),
+    partNumber: text("part_number").notNull().default(""),
     quantityMilli: integer("quantity_milli").notNull(),
     unitPriceCents: integer("unit_price_cents").notNull(),
     amountCents: integer("amount_cents").notNull(),
@@ -438,6 +445,12 @@ export const payments = sqliteTable(
     // An online amount that does not match the open balance is kept and flagged, never silently applied.
     flagged: bool("flagged").notNull().default(false),
     flagReason: text("flag_reason"),
+    // Counted in the invoice's paid amount. A flagged payment waits for the shop:
+    // applied to the invoice, or marked returned to the payer.
+    applied: bool("applied").notNull().default(true),
+    resolution: text("resolution", { enum: ["applied", "returned"] }),
+    resolvedAt: text("resolved_at"),
+    resolvedBy: text("resolved_by").references(() => users.id),
     note: text("note").notNull().default(""),
     createdAt: createdAt(),
   },

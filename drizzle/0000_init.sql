@@ -207,6 +207,7 @@ CREATE TABLE `invoice_lines` (
 	`position` integer NOT NULL,
 	`kind` text NOT NULL,
 	`description` text NOT NULL,
+	`part_number` text DEFAULT '' NOT NULL,
 	`quantity_milli` integer NOT NULL,
 	`unit_price_cents` integer NOT NULL,
 	`amount_cents` integer NOT NULL,
@@ -224,6 +225,8 @@ CREATE TABLE `invoices` (
 	`status` text DEFAULT 'open' NOT NULL,
 	`po_number` text,
 	`bill_to` text NOT NULL,
+	`shop_snapshot` text,
+	`unit_snapshot` text,
 	`tax_exempt_certificate` text,
 	`tax_rate_milli_pct` integer DEFAULT 0 NOT NULL,
 	`terms_days` integer NOT NULL,
@@ -253,6 +256,7 @@ CREATE TABLE `invoices` (
 );
 --> statement-breakpoint
 CREATE UNIQUE INDEX `invoices_number_unique` ON `invoices` (`number`);--> statement-breakpoint
+CREATE UNIQUE INDEX `invoices_one_live_per_wo` ON `invoices` (`work_order_id`) WHERE status <> 'void';--> statement-breakpoint
 CREATE INDEX `invoices_account_status_idx` ON `invoices` (`account_id`,`status`);--> statement-breakpoint
 CREATE INDEX `invoices_wo_idx` ON `invoices` (`work_order_id`);--> statement-breakpoint
 CREATE TABLE `labor_rates` (
@@ -331,11 +335,16 @@ CREATE TABLE `payments` (
 	`payment_intent_id` text,
 	`flagged` integer DEFAULT false NOT NULL,
 	`flag_reason` text,
+	`applied` integer DEFAULT true NOT NULL,
+	`resolution` text,
+	`resolved_at` text,
+	`resolved_by` text,
 	`note` text DEFAULT '' NOT NULL,
 	`created_at` text DEFAULT (strftime('%Y-%m-%dT%H:%M:%fZ','now')) NOT NULL,
 	FOREIGN KEY (`invoice_id`) REFERENCES `invoices`(`id`) ON UPDATE no action ON DELETE no action,
 	FOREIGN KEY (`account_id`) REFERENCES `accounts`(`id`) ON UPDATE no action ON DELETE no action,
-	FOREIGN KEY (`recorded_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action
+	FOREIGN KEY (`recorded_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action,
+	FOREIGN KEY (`resolved_by`) REFERENCES `users`(`id`) ON UPDATE no action ON DELETE no action
 );
 --> statement-breakpoint
 CREATE INDEX `payments_invoice_idx` ON `payments` (`invoice_id`);--> statement-breakpoint
@@ -493,6 +502,7 @@ CREATE TABLE `work_orders` (
 );
 --> statement-breakpoint
 CREATE UNIQUE INDEX `work_orders_number_unique` ON `work_orders` (`number`);--> statement-breakpoint
+CREATE UNIQUE INDEX `work_orders_one_open_per_unit` ON `work_orders` (`unit_id`) WHERE status <> 'released';--> statement-breakpoint
 CREATE INDEX `work_orders_account_status_idx` ON `work_orders` (`account_id`,`status`);--> statement-breakpoint
 CREATE INDEX `work_orders_unit_idx` ON `work_orders` (`unit_id`);--> statement-breakpoint
 CREATE INDEX `work_orders_tech_idx` ON `work_orders` (`assigned_tech_id`);

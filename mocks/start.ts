@@ -1,5 +1,6 @@
 import { existsSync } from "node:fs";
 import { startFakeSmtp } from "./smtp/server";
+import { startFakeStripe } from "./stripe/server";
 
 // Read the same .env files Next.js reads, so "is a real key configured?" has one answer.
 for (const file of [".env.local", ".env"]) if (existsSync(file)) process.loadEnvFile(file);
@@ -13,6 +14,20 @@ async function main() {
       httpPort: Number(process.env.FAKE_SMTP_HTTP_PORT ?? 2526),
     });
     started.push(`mail catcher: smtp://127.0.0.1:${smtp.smtpPort} (caught mail at /dev/mail for the owner)`);
+  }
+  if (!process.env.STRIPE_SECRET_KEY) {
+    const appUrl = (process.env.NEXTAUTH_URL ?? "http://localhost:3000").replace(/\/$/, "");
+    const webhookUrl = `${appUrl}/api/webhooks/stripe`;
+    const payments = await startFakeStripe({
+      port: Number(process.env.FAKE_STRIPE_PORT ?? 12111),
+      webhookUrl,
+      webhookSecret: process.env.STRIPE_WEBHOOK_SECRET ?? "whsec_cotter_local_fake",
+      stateFile: "mocks/.storage/payments.json",
+      log: (line) => {
+        if (!/^(GET|POST) /.test(line)) console.log(`[fake-payments] ${line}`);
+      },
+    });
+    started.push(`card payments: ${payments.url} (test card 4242 4242 4242 4242; webhooks to ${webhookUrl})`);
   }
   console.log(started.length ? `Local fakes running:\n  ${started.join("\n  ")}` : "All services configured; no fakes started.");
 }

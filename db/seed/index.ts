@@ -2,6 +2,7 @@ import { openDatabase } from "@/db/client";
 import { shopSettings } from "@/db/schema";
 import { seedAccounts } from "./accounts";
 import { seedEstimates } from "./estimates";
+import { seedInvoices } from "./invoices";
 import type { SeedContext } from "./context";
 import { seedOccurrences } from "./occurrences";
 import { demoPasswordHash, seedShop } from "./shop";
@@ -24,6 +25,8 @@ export async function seedDatabase(url: string, options: { ifEmpty?: boolean; au
       await seedAccounts(ctx, passwordHash);
       await seedUnits(ctx);
       await seedWorkOrders(ctx);
+      // Past visits' billed work first, so the estimates step sets budgets with it counted.
+      await seedInvoices(ctx);
       await seedEstimates(ctx);
       await seedOccurrences(ctx);
     });

@@ -6,6 +6,7 @@ import type { TestProject } from "vitest/node";
 import { migrateDatabase } from "@/db/migrate";
 import { seedDatabase } from "@/db/seed";
 import { startFakeSmtp } from "@/mocks/smtp/server";
+import { startFakeStripe } from "@/mocks/stripe/server";
 
 const root = path.join(import.meta.dirname, "..", "..");
 // A separate build directory per checkout or worktree lets test runs sit side by side.
@@ -15,6 +16,7 @@ declare module "vitest" {
   export interface ProvidedContext {
     baseUrl: string;
     mailUrl: string;
+    paymentsUrl: string;
   }
 }
 
@@ -65,6 +67,9 @@ export default async function setup(project: TestProject) {
   const smtp = await startFakeSmtp();
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
+  const webhookSecret = "whsec_browser_tests";
+  // Retries come quickly here, in the same rising shape as the service's.
+  const payments = await startFakeStripe({ port: 0, webhookUrl: `${baseUrl}/api/webhooks/stripe`, webhookSecret, retryDelaysMs: [500, 2_000, 5_000] });
   const server = spawn(path.join(root, "node_modules", ".bin", "next"), ["start", "-p", String(port), "-H", "127.0.0.1"], {
     cwd: root,
     env: {
@@ -74,6 +79,9 @@ export default async function setup(project: TestProject) {
       NEXTAUTH_URL: baseUrl,
       NEXTAUTH_SECRET: "browser-tests-secret-browser-tests-secret",
       SMTP_URL: `smtp://127.0.0.1:${smtp.smtpPort}`,
+      STRIPE_SECRET_KEY: "",
+      FAKE_STRIPE_PORT: String(payments.port),
+      STRIPE_WEBHOOK_SECRET: webhookSecret,
     },
     stdio: ["ignore", "inherit", "inherit"],
   });
@@ -81,9 +89,11 @@ export default async function setup(project: TestProject) {
 
   project.provide("baseUrl", baseUrl);
   project.provide("mailUrl", `http://127.0.0.1:${smtp.httpPort}`);
+  project.provide("paymentsUrl", payments.url);
 
   return async () => {
     server.kill("SIGTERM");
+    await payments.close();
     await smtp.close();
   };
 }

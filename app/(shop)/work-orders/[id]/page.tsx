@@ -4,6 +4,7 @@ import { DecisionLog } from "@/components/estimate/decision-log";
 import { DeferredOfferPanel } from "@/components/estimate/deferred-offer";
 import { EstimateEditor } from "@/components/estimate/estimate-editor";
 import { TimeClock } from "@/components/estimate/time-clock";
+import { WorkOrderInvoice } from "@/components/invoices/work-order-invoice";
 import { WorkOrderOccurrences } from "@/components/occurrences/work-order-occurrences";
 import { Card, CardTitle } from "@/components/ui/card";
 import { ConcernList } from "@/components/work-order/concern-list";
@@ -53,6 +54,7 @@ export default async function ShopWorkOrderPage({ params }: { params: Promise<{ 
             </div>
           </Card>
         ) : null}
+        <WorkOrderInvoice workOrderId={view.id} user={user} />
         <Card>
           <CardTitle>Decisions</CardTitle>
           <DecisionLog entries={view.decisionLog} describe={describe} />

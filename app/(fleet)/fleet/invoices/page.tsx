@@ -1,0 +1,72 @@
+import type { Metadata } from "next";
+import { InvoiceList } from "@/components/invoices/invoice-list";
+import { PoNumberForm } from "@/components/invoices/po-number-form";
+import { Card, CardTitle } from "@/components/ui/card";
+import { EmptyState } from "@/components/ui/empty-state";
+import { Money } from "@/components/ui/money";
+import { PageHeader } from "@/components/ui/page-header";
+import { waitingForPo } from "@/db/queries/invoice-pages";
+import { listInvoices } from "@/db/queries/invoices";
+import { getAccountName } from "@/db/queries/settings";
+import { requireUser } from "@/lib/auth/current-user";
+import { CAN, hasRole } from "@/lib/auth/policy";
+import { env } from "@/lib/env";
+
+export const metadata: Metadata = { title: "Invoices" };
+
+export default async function FleetInvoicesPage() {
+  const user = await requireUser();
+  const [{ invoices }, needPo, accountName] = await Promise.all([
+    listInvoices(user, { limit: 200 }),
+    hasRole(user, CAN.enterPoNumber) ? waitingForPo(user) : Promise.resolve([]),
+    getAccountName(user.accountId ?? ""),
+  ]);
+  const owing = invoices.filter((i) => i.paymentState === "open" || i.paymentState === "partly_paid");
+  const settled = invoices.filter((i) => !owing.includes(i));
+  const due = owing.reduce((s, i) => s + i.balanceCents, 0);
+  const timeZone = env().APP_TIME_ZONE;
+  return (
+    <>
+      <PageHeader title="Invoices" kicker={accountName}>
+        <p className="text-right">
+          <span className="block text-sm text-ink-faint">Open balance</span>
+          <Money cents={due} className="text-2xl font-bold" />
+        </p>
+      </PageHeader>
+      <div className="flex flex-col gap-4">
+        {needPo.length > 0 ? (
+          <Card className="border-2 border-rust" data-testid="waiting-for-po">
+            <CardTitle>Waiting for your PO number</CardTitle>
+            <p className="mb-2 text-sm text-ink-soft">The shop cannot invoice these visits until they carry a PO number.</p>
+            <ul className="flex flex-col gap-3">
+              {needPo.map((w) => (
+                <li key={w.id}>
+                  <p className="font-semibold">
+                    {w.label} · Unit {w.unitNumber} · {w.title}
+                  </p>
+                  <PoNumberForm workOrderId={w.id} label={w.label} />
+                </li>
+              ))}
+            </ul>
+          </Card>
+        ) : null}
+        <Card>
+          <CardTitle>To pay</CardTitle>
+          {owing.length === 0 ? (
+            <EmptyState title="Nothing to pay">Every invoice is paid.</EmptyState>
+          ) : (
+            <InvoiceList invoices={owing} hrefFor={(id) => `/fleet/invoices/${id}`} timeZone={timeZone} />
+          )}
+        </Card>
+        <Card>
+          <CardTitle>Paid and void</CardTitle>
+          {settled.length === 0 ? (
+            <p className="text-ink-faint">None yet.</p>
+          ) : (
+            <InvoiceList invoices={settled} hrefFor={(id) => `/fleet/invoices/${id}`} timeZone={timeZone} />
+          )}
+        </Card>
+      </div>
+    </>
+  );
+}

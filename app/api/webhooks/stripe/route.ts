@@ -1,0 +1,44 @@
+import { applyStripeEvent } from "@/db/queries/stripe-events";
+import { errorResponse } from "@/lib/http/api-route";
+import { HttpError, problemResponse } from "@/lib/http/problem";
+import { notifyPaymentFlagged, notifyPaymentReceived } from "@/lib/mail/invoice-notices";
+import { deliverLater } from "@/lib/mail/deliver";
+import { verifyWebhookEvent, type Stripe } from "@/lib/payments/stripe";
+
+export const dynamic = "force-dynamic";
+
+const MAX_BYTES = 512 * 1024;
+
+/**
+ * Signed events from the card-payment service. The signature is checked on the
+ * exact bytes received; an unsigned or forged event is refused and changes
+ * nothing. Each event takes effect once however often it arrives.
+ */
+export async function POST(request: Request): Promise<Response> {
+  const raw = await request.text();
+  if (raw.length > MAX_BYTES) {
+    return problemResponse(new HttpError(413, "payload_too_large", "Payload too large", "The event is too large."));
+  }
+  let event: Stripe.Event;
+  try {
+    event = verifyWebhookEvent(raw, request.headers.get("stripe-signature"));
+  } catch {
+    return problemResponse(
+      new HttpError(400, "invalid_signature", "Invalid signature", "The event's signature does not verify. Nothing was recorded."),
+    );
+  }
+  try {
+    const result = await applyStripeEvent(event);
+    if (result.outcome === "payment_recorded") {
+      const { paymentId, flagged } = result;
+      void deliverLater(async () => {
+        await notifyPaymentReceived(paymentId);
+        if (flagged) await notifyPaymentFlagged(paymentId);
+      });
+    }
+    return Response.json({ received: true, outcome: result.outcome });
+  } catch (error) {
+    // A failure rolls the event back; a 5xx makes the service deliver it again.
+    return errorResponse(error);
+  }
+}

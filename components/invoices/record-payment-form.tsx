@@ -1,0 +1,51 @@
+"use client";
+
+import { useActionState, useState } from "react";
+import { Field, FormMessage, inputClass } from "@/components/forms/field";
+import { Button } from "@/components/ui/button";
+import type { ActionResult } from "@/lib/auth/guarded-action";
+import { recordPaymentAction } from "@/lib/actions/invoices";
+import { decimalDollars } from "@/lib/invoices/csv";
+
+type State = ActionResult<{ balanceCents: number; status: string }> | null;
+
+/** A cheque, transfer or cash payment, whole or in part. */
+export function RecordPaymentForm({ invoiceId, balanceCents, today }: { invoiceId: string; balanceCents: number; today: string }) {
+  const [method, setMethod] = useState("cheque");
+  const [state, formAction, pending] = useActionState<State, FormData>((_prev, form) => recordPaymentAction(form), null);
+  const errors = state && !state.ok ? state.fieldErrors : undefined;
+  return (
+    <form action={formAction} className="flex flex-col gap-3" data-testid="record-payment">
+      <input type="hidden" name="invoiceId" value={invoiceId} />
+      <label className="flex flex-col gap-1">
+        <span className="font-semibold">How it arrived</span>
+        <select name="method" className={inputClass} value={method} onChange={(e) => setMethod(e.target.value)}>
+          <option value="cheque">Cheque</option>
+          <option value="transfer">Bank transfer</option>
+          <option value="cash">Cash</option>
+        </select>
+      </label>
+      <div className="grid gap-3">
+        <Field label="Amount ($)" name="amount" inputMode="decimal" required defaultValue={decimalDollars(balanceCents)} error={errors?.amount} />
+        <Field label="Received on" name="receivedOn" type="date" required defaultValue={today} max={today} error={errors?.receivedOn} />
+      </div>
+      <Field
+        label={method === "cheque" ? "Cheque number" : method === "transfer" ? "Transfer reference" : "Reference (optional)"}
+        name="reference"
+        required={method !== "cash"}
+        error={errors?.reference}
+      />
+      <FormMessage result={state} />
+      {state?.ok ? (
+        <p role="status" className="text-sm font-semibold">
+          Payment recorded{state.data.status === "paid" ? "; the invoice is paid in full" : ""}. A receipt is on its way to the account.
+        </p>
+      ) : null}
+      <div>
+        <Button type="submit" disabled={pending}>
+          {pending ? "Recording…" : "Record payment"}
+        </Button>
+      </div>
+    </form>
+  );
+}

@@ -1,0 +1,30 @@
+"use client";
+
+import { useActionState } from "react";
+import { Field, FormMessage } from "@/components/forms/field";
+import { Button } from "@/components/ui/button";
+import type { ActionResult } from "@/lib/auth/guarded-action";
+import { voidInvoiceAction } from "@/lib/actions/invoices";
+
+type State = ActionResult<never> | null;
+
+/** Voiding keeps the invoice and its number; the work order can then be invoiced again. */
+export function VoidInvoiceForm({ invoiceId, label }: { invoiceId: string; label: string }) {
+  const [state, formAction, pending] = useActionState<State, FormData>((_prev, form) => voidInvoiceAction(form), null);
+  const errors = state && !state.ok ? state.fieldErrors : undefined;
+  return (
+    <form action={formAction} className="flex flex-col gap-3" data-testid="void-invoice">
+      <input type="hidden" name="invoiceId" value={invoiceId} />
+      <p className="text-sm text-ink-soft">
+        {label} stays on record, marked void, and keeps its number. Issue the corrected invoice from the work order afterwards.
+      </p>
+      <Field label="Why is it void?" name="reason" required minLength={3} maxLength={500} error={errors?.reason} />
+      <FormMessage result={state} />
+      <div>
+        <Button type="submit" variant="danger" disabled={pending}>
+          {pending ? "Voiding…" : `Void ${label}`}
+        </Button>
+      </div>
+    </form>
+  );
+}

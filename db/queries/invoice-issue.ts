@@ -1,0 +1,285 @@
+import { and, desc, eq, inArray, ne, sql } from "drizzle-orm";
+import { writeTx, type Tx } from "@/db/client";
+import {
+  accountContacts,
+  accounts,
+  counters,
+  estimateLines,
+  invoiceLines,
+  invoices,
+  shopSettings,
+  units,
+  workOrders,
+  type Account,
+  type EstimateLine,
+  type ShopSettings as ShopRow,
+  type Unit,
+  type WorkOrder,
+} from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/session-user";
+import { invoiceLabel, workOrderLabel } from "@/lib/domain";
+import type { AccountSettings, ShopSettings } from "@/lib/estimate";
+import { env } from "@/lib/env";
+import { calendarDate } from "@/lib/format";
+import { conflict, notFound } from "@/lib/http/problem";
+import { nowIso } from "@/lib/ids";
+import { dueDateOf } from "@/lib/invoices/balance";
+import { buildInvoice, type BillableLine } from "@/lib/invoices/build";
+import type { BillTo, ShopSnapshot, UnitSnapshot } from "@/lib/invoices/snapshot";
+import { recordAudit } from "./audit";
+import { scopedTo } from "./scope";
+
+export function toBillable(row: EstimateLine): BillableLine {
+  return {
+    id: row.id,
+    position: row.position,
+    kind: row.kind,
+    description: row.description,
+    partNumber: row.partNumber,
+    quantityMilli: row.quantityMilli,
+    unitPriceCents: row.unitPriceCents,
+    taxable: row.taxable,
+    coreChargeCents: row.coreChargeCents,
+    coreReturned: row.coreReturnedAt !== null,
+    state: row.state,
+  };
+}
+
+export function accountPricing(a: Account): AccountSettings {
+  return {
+    taxExempt: a.taxExempt,
+    taxRateMilliPct: a.taxRateMilliPct,
+    shopSuppliesExempt: a.shopSuppliesExempt,
+    standingAuthorisationCents: a.standingAuthorisationCents,
+    repairBudgetCents: a.repairBudgetCents,
+    fiscalYearStartMonth: a.fiscalYearStartMonth,
+    overrunPercentMilli: a.overrunPercentMilli,
+    overrunCapCents: a.overrunCapCents,
+    overrunFloorCents: a.overrunFloorCents,
+  };
+}
+
+export function shopPricing(s: ShopRow): ShopSettings {
+  return {
+    shopSuppliesRateMilliPct: s.shopSuppliesRateMilliPct,
+    shopSuppliesCapCents: s.shopSuppliesCapCents,
+    shopSuppliesTaxable: s.shopSuppliesTaxable,
+  };
+}
+
+export interface InvoiceSources {
+  wo: WorkOrder;
+  account: Account;
+  shop: ShopRow;
+  unit: Unit;
+  lines: EstimateLine[];
+  billingContact: string;
+}
+
+/** Everything an invoice is made from, read inside the caller's transaction. */
+export async function loadInvoiceSources(tx: Tx, user: Pick<SessionUser, "role" | "accountId">, workOrderId: string): Promise<InvoiceSources> {
+  const [wo] = await tx
+    .select()
+    .from(workOrders)
+    .where(and(eq(workOrders.id, workOrderId), scopedTo(workOrders.accountId, user)))
+    .limit(1);
+  if (!wo) throw notFound("That work order");
+  const [[account], [shop], [unit], lines, contacts] = await Promise.all([
+    tx.select().from(accounts).where(eq(accounts.id, wo.accountId)).limit(1),
+    tx.select().from(shopSettings).where(eq(shopSettings.id, 1)).limit(1),
+    tx.select().from(units).where(eq(units.id, wo.unitId)).limit(1),
+    tx.select().from(estimateLines).where(eq(estimateLines.workOrderId, wo.id)).orderBy(estimateLines.position, estimateLines.createdAt),
+    tx.select({ name: accountContacts.name }).from(accountContacts).where(and(eq(accountContacts.accountId, wo.accountId), eq(accountContacts.isBilling, true))).limit(1),
+  ]);
+  if (!account || !shop || !unit) throw new Error("work order without account, unit or shop settings");
+  return { wo, account, shop, unit, lines, billingContact: contacts[0]?.name ?? "" };
+}
+
+export function snapshots(src: InvoiceSources): { billTo: BillTo; shop: ShopSnapshot; unit: UnitSnapshot } {
+  const { account, shop, unit, wo } = src;
+  return {
+    billTo: { accountName: account.name, address: account.address, email: account.billingEmail, phone: account.phone, contactName: src.billingContact },
+    shop: {
+      name: shop.shopName,
+      addressLines: [shop.addressLine1, shop.addressLine2].filter(Boolean),
+      phone: shop.phone,
+      email: shop.email,
+      footer: shop.invoiceFooter,
+    },
+    unit: {
+      unitNumber: unit.unitNumber,
+      description: unit.description,
+      year: unit.year,
+      vin: unit.vin,
+      serialNumber: unit.serialNumber,
+      workOrderNumber: wo.number,
+      workOrderTitle: wo.title,
+    },
+  };
+}
+
+/**
+ * Writes one invoice inside the caller's transaction: the next number from
+ * the gap-free counter, a snapshot of who and what is billed, and the priced
+ * lines. Shared by issuing and the demo seed so both follow the same rules.
+ */
+export async function createInvoiceInTx(
+  tx: Tx,
+  src: InvoiceSources,
+  opts: { poNumber: string | null; issuedAt: Date; issuedBy: string | null; timeZone: string },
+) {
+  const { wo, account } = src;
+  const [live] = await tx
+    .select({ number: invoices.number })
+    .from(invoices)
+    .where(and(eq(invoices.workOrderId, wo.id), ne(invoices.status, "void")))
+    .limit(1);
+  if (live) {
+    throw conflict(
+      "already_invoiced",
+      `${workOrderLabel(wo.number)} is already on ${invoiceLabel(live.number)}. To correct it, void that invoice first.`,
+    );
+  }
+  if (account.poRequired && !opts.poNumber) {
+    throw conflict("po_required", `${account.name} requires a PO number on every invoice. Enter the PO number to issue it.`);
+  }
+  const draft = buildInvoice(src.lines.map(toBillable), shopPricing(src.shop), accountPricing(account));
+  if (draft.lines.length === 0) {
+    throw conflict("nothing_to_invoice", `${workOrderLabel(wo.number)} has no completed lines to invoice yet.`);
+  }
+  const [counter] = await tx
+    .update(counters)
+    .set({ value: sql`${counters.value} + 1` })
+    .where(eq(counters.name, "invoice"))
+    .returning({ value: counters.value });
+  if (!counter) throw new Error("the invoice counter is missing");
+  const [previous] = await tx
+    .select({ id: invoices.id })
+    .from(invoices)
+    .where(and(eq(invoices.workOrderId, wo.id), eq(invoices.status, "void")))
+    .orderBy(desc(invoices.number))
+    .limit(1);
+  const issuedOn = calendarDate(opts.issuedAt, opts.timeZone);
+  const snap = snapshots(src);
+  const t = draft.totals;
+  const [row] = await tx
+    .insert(invoices)
+    .values({
+      number: counter.value,
+      workOrderId: wo.id,
+      accountId: account.id,
+      status: "open",
+      poNumber: opts.poNumber,
+      billTo: snap.billTo,
+      shopSnapshot: snap.shop,
+      unitSnapshot: snap.unit,
+      taxExemptCertificate: account.taxExempt ? (account.taxExemptCertificate ?? "") : null,
+      taxRateMilliPct: account.taxExempt ? 0 : account.taxRateMilliPct,
+      termsDays: account.paymentTermsDays,
+      issuedAt: opts.issuedAt.toISOString(),
+      dueOn: dueDateOf(issuedOn, account.paymentTermsDays),
+      laborCents: t.laborCents,
+      partsCents: t.partsCents,
+      subletCents: t.subletCents,
+      feesCents: t.feesCents,
+      shopSuppliesCents: t.shopSuppliesCents,
+      taxableCents: t.taxableCents,
+      taxCents: t.taxCents,
+      coreCents: t.coreCents,
+      totalCents: t.totalCents,
+      replacesInvoiceId: previous?.id ?? null,
+      issuedBy: opts.issuedBy,
+      createdAt: opts.issuedAt.toISOString(),
+      updatedAt: opts.issuedAt.toISOString(),
+    })
+    .returning({ id: invoices.id, number: invoices.number });
+  if (!row) throw new Error("invoice insert returned nothing");
+  await tx.insert(invoiceLines).values(draft.lines.map((l) => ({ invoiceId: row.id, ...l })));
+  return { id: row.id, number: row.number, accountId: account.id, totalCents: t.totalCents };
+}
+
+/** Issues the invoice for a work order (owner, writer). A PO number typed here is kept on the work order too. */
+export async function issueInvoice(user: SessionUser, workOrderId: string, input: { poNumber?: string }, now = new Date()) {
+  return writeTx(async (tx) => {
+    const src = await loadInvoiceSources(tx, user, workOrderId);
+    const typed = input.poNumber?.trim() || null;
+    const poNumber = typed ?? src.wo.poNumber;
+    if (typed && typed !== src.wo.poNumber) {
+      await tx.update(workOrders).set({ poNumber: typed, updatedAt: nowIso() }).where(eq(workOrders.id, src.wo.id));
+    }
+    const created = await createInvoiceInTx(tx, src, { poNumber, issuedAt: now, issuedBy: user.id, timeZone: env().APP_TIME_ZONE });
+    await recordAudit(tx, user, {
+      action: "invoice.issue",
+      entityType: "invoice",
+      entityId: created.id,
+      accountId: created.accountId,
+      detail: { number: created.number, workOrderId, totalCents: created.totalCents, poNumber },
+    });
+    return created;
+  });
+}
+
+/** Marks approved work finished (owner, writer, from the issue screen). */
+export async function markLinesDone(user: SessionUser, workOrderId: string, lineIds: string[]) {
+  return writeTx(async (tx) => {
+    const [wo] = await tx
+      .select({ id: workOrders.id, accountId: workOrders.accountId })
+      .from(workOrders)
+      .where(and(eq(workOrders.id, workOrderId), scopedTo(workOrders.accountId, user)))
+      .limit(1);
+    if (!wo) throw notFound("That work order");
+    const changed = await tx
+      .update(estimateLines)
+      .set({ state: "done", updatedAt: nowIso() })
+      .where(
+        and(
+          eq(estimateLines.workOrderId, wo.id),
+          inArray(estimateLines.id, lineIds),
+          inArray(estimateLines.state, ["approved", "in_progress"]),
+        ),
+      )
+      .returning({ id: estimateLines.id });
+    if (changed.length > 0) {
+      await recordAudit(tx, user, {
+        action: "line.done",
+        entityType: "work_order",
+        entityId: wo.id,
+        accountId: wo.accountId,
+        detail: { lineIds: changed.map((c) => c.id) },
+      });
+    }
+    return { count: changed.length };
+  });
+}
+
+/** The clerk (or the shop) enters the work order's PO number before it is invoiced. */
+export async function setWorkOrderPoNumber(user: SessionUser, workOrderId: string, poNumber: string) {
+  return writeTx(async (tx) => {
+    const [wo] = await tx
+      .select({ id: workOrders.id, accountId: workOrders.accountId, number: workOrders.number, poNumber: workOrders.poNumber })
+      .from(workOrders)
+      .where(and(eq(workOrders.id, workOrderId), scopedTo(workOrders.accountId, user)))
+      .limit(1);
+    if (!wo) throw notFound("That work order");
+    const [live] = await tx
+      .select({ number: invoices.number })
+      .from(invoices)
+      .where(and(eq(invoices.workOrderId, wo.id), ne(invoices.status, "void")))
+      .limit(1);
+    if (live) {
+      throw conflict(
+        "already_invoiced",
+        `${workOrderLabel(wo.number)} is already on ${invoiceLabel(live.number)}; an issued invoice does not change. Ask the shop to void and re-issue it.`,
+      );
+    }
+    await tx.update(workOrders).set({ poNumber, updatedAt: nowIso() }).where(eq(workOrders.id, wo.id));
+    await recordAudit(tx, user, {
+      action: "work_order.po_number",
+      entityType: "work_order",
+      entityId: wo.id,
+      accountId: wo.accountId,
+      detail: { from: wo.poNumber, to: poNumber },
+    });
+    return { workOrderId: wo.id, poNumber };
+  });
+}

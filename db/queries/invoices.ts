@@ -1,0 +1,251 @@
+import { and, asc, desc, eq, gt, lt, or, sql, type SQL } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { accounts, invoiceLines, invoices, payments, units, users, workOrders } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/session-user";
+import { invoiceLabel, workOrderLabel, type InvoiceStatus } from "@/lib/domain";
+import { env } from "@/lib/env";
+import { calendarDate } from "@/lib/format";
+import { invalidInput } from "@/lib/http/problem";
+import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
+import { balanceOf, paymentStateOf } from "@/lib/invoices/balance";
+import { fromMilli } from "@/lib/money";
+import { scopedTo } from "./scope";
+
+const listColumns = {
+  id: invoices.id,
+  number: invoices.number,
+  accountId: invoices.accountId,
+  workOrderId: invoices.workOrderId,
+  status: invoices.status,
+  issuedAt: invoices.issuedAt,
+  dueOn: invoices.dueOn,
+  totalCents: invoices.totalCents,
+  paidCents: invoices.paidCents,
+  poNumber: invoices.poNumber,
+  accountName: accounts.name,
+  workOrderNumber: workOrders.number,
+  unitNumber: units.unitNumber,
+};
+
+interface ListRow {
+  id: string;
+  number: number;
+  accountId: string;
+  workOrderId: string;
+  status: InvoiceStatus;
+  issuedAt: string;
+  dueOn: string;
+  totalCents: number;
+  paidCents: number;
+  poNumber: string | null;
+  accountName: string;
+  workOrderNumber: number;
+  unitNumber: string;
+}
+
+function listItem(r: ListRow) {
+  return {
+    id: r.id,
+    number: r.number,
+    label: invoiceLabel(r.number),
+    accountId: r.accountId,
+    accountName: r.accountName,
+    workOrderId: r.workOrderId,
+    workOrderNumber: workOrderLabel(r.workOrderNumber),
+    unitNumber: r.unitNumber,
+    poNumber: r.poNumber,
+    status: r.status,
+    paymentState: paymentStateOf(r),
+    issuedAt: r.issuedAt,
+    // A due date is a calendar date in the shop's time zone (ISO 8601 date).
+    dueAt: r.dueOn,
+    totalCents: r.totalCents,
+    paidCents: r.paidCents,
+    balanceCents: balanceOf(r),
+  };
+}
+
+export type InvoiceListItem = ReturnType<typeof listItem>;
+
+function listQuery(where: SQL | undefined) {
+  return getDb()
+    .select(listColumns)
+    .from(invoices)
+    .innerJoin(accounts, eq(accounts.id, invoices.accountId))
+    .innerJoin(workOrders, eq(workOrders.id, invoices.workOrderId))
+    .innerJoin(units, eq(units.id, workOrders.unitId))
+    .where(where);
+}
+
+/** Invoices the caller may see, newest number first (GET /api/v1/invoices, the invoice lists). */
+export async function listInvoices(
+  user: SessionUser,
+  opts: PageQuery & { status?: InvoiceStatus; accountId?: string; workOrderId?: string },
+): Promise<{ invoices: InvoiceListItem[]; nextCursor: string | null }> {
+  const after = decodeCursor(opts.cursor, 1);
+  if (opts.cursor && !after) throw invalidInput([{ path: "cursor", message: "Not a cursor this API issued." }]);
+  const rows = await listQuery(
+    and(
+      scopedTo(invoices.accountId, user),
+      opts.status ? eq(invoices.status, opts.status) : undefined,
+      opts.accountId ? eq(invoices.accountId, opts.accountId) : undefined,
+      opts.workOrderId ? eq(invoices.workOrderId, opts.workOrderId) : undefined,
+      after ? lt(invoices.number, Number(after[0])) : undefined,
+    ),
+  )
+    .orderBy(desc(invoices.number))
+    .limit(opts.limit + 1);
+  const { page, nextCursor } = paginate(rows, opts.limit, (r) => [r.number]);
+  return { invoices: page.map(listItem), nextCursor };
+}
+
+/** Every invoice of a work order, newest first (the shop's Invoice section). */
+export async function invoicesOfWorkOrder(user: SessionUser, workOrderId: string): Promise<InvoiceListItem[]> {
+  const rows = await listQuery(and(scopedTo(invoices.accountId, user), eq(invoices.workOrderId, workOrderId))).orderBy(
+    desc(invoices.number),
+  );
+  return rows.map(listItem);
+}
+
+/** Open invoices with something left to pay, optionally for one account (statements, receivables). */
+export async function openInvoices(accountId: string | null) {
+  const rows = await listQuery(
+    and(
+      eq(invoices.status, "open"),
+      gt(sql`${invoices.totalCents} - ${invoices.paidCents}`, 0),
+      accountId ? eq(invoices.accountId, accountId) : undefined,
+    ),
+  ).orderBy(asc(invoices.dueOn));
+  return rows.map(listItem);
+}
+
+/** One invoice with lines and payments, scoped: null for another account's or a missing id. */
+export async function getInvoiceDetail(user: Pick<SessionUser, "role" | "accountId">, id: string) {
+  const db = getDb();
+  const [inv] = await db
+    .select({ invoice: invoices, accountName: accounts.name, workOrderNumber: workOrders.number, unitId: workOrders.unitId })
+    .from(invoices)
+    .innerJoin(accounts, eq(accounts.id, invoices.accountId))
+    .innerJoin(workOrders, eq(workOrders.id, invoices.workOrderId))
+    .where(and(eq(invoices.id, id), scopedTo(invoices.accountId, user)))
+    .limit(1);
+  if (!inv) return null;
+  const i = inv.invoice;
+  const [lineRows, paymentRows, related] = await Promise.all([
+    db.select().from(invoiceLines).where(eq(invoiceLines.invoiceId, i.id)).orderBy(asc(invoiceLines.position)),
+    db
+      .select({ payment: payments, recordedByName: users.name })
+      .from(payments)
+      .leftJoin(users, eq(users.id, payments.recordedBy))
+      .where(eq(payments.invoiceId, i.id))
+      .orderBy(asc(payments.receivedAt)),
+    db
+      .select({ id: invoices.id, number: invoices.number, replacesInvoiceId: invoices.replacesInvoiceId })
+      .from(invoices)
+      .where(or(eq(invoices.replacesInvoiceId, i.id), i.replacesInvoiceId ? eq(invoices.id, i.replacesInvoiceId) : undefined)),
+  ]);
+  const replacedBy = related.find((r) => r.replacesInvoiceId === i.id) ?? null;
+  const replaces = related.find((r) => r.id === i.replacesInvoiceId) ?? null;
+  const tz = env().APP_TIME_ZONE;
+  return {
+    id: i.id,
+    number: i.number,
+    label: invoiceLabel(i.number),
+    accountId: i.accountId,
+    accountName: inv.accountName,
+    workOrderId: i.workOrderId,
+    workOrderNumber: workOrderLabel(inv.workOrderNumber),
+    unitId: inv.unitId,
+    status: i.status,
+    paymentState: paymentStateOf(i),
+    issuedAt: i.issuedAt,
+    issuedOn: calendarDate(new Date(i.issuedAt), tz),
+    dueAt: i.dueOn,
+    termsDays: i.termsDays,
+    poNumber: i.poNumber,
+    billTo: i.billTo,
+    shop: i.shopSnapshot,
+    unit: i.unitSnapshot,
+    taxExempt: i.taxExemptCertificate !== null,
+    taxExemptCertificate: i.taxExemptCertificate,
+    taxRatePercent: i.taxRateMilliPct / 1000,
+    lines: lineRows.map((l) => ({
+      id: l.id,
+      kind: l.kind,
+      description: l.description,
+      partNumber: l.partNumber,
+      quantity: fromMilli(l.quantityMilli),
+      quantityMilli: l.quantityMilli,
+      unitPriceCents: l.unitPriceCents,
+      amountCents: l.amountCents,
+      taxable: l.taxable,
+      coreChargeCents: l.coreChargeCents,
+    })),
+    totals: {
+      laborCents: i.laborCents,
+      partsCents: i.partsCents,
+      subletCents: i.subletCents,
+      feesCents: i.feesCents,
+      shopSuppliesCents: i.shopSuppliesCents,
+      taxableCents: i.taxableCents,
+      taxCents: i.taxCents,
+      coreCents: i.coreCents,
+      totalCents: i.totalCents,
+    },
+    totalCents: i.totalCents,
+    paidCents: i.paidCents,
+    balanceCents: balanceOf(i),
+    payments: paymentRows.map(({ payment: p, recordedByName }) => ({
+      id: p.id,
+      method: p.method,
+      amountCents: p.amountCents,
+      reference: p.reference,
+      receivedAt: p.receivedAt,
+      receivedOn: calendarDate(new Date(p.receivedAt), tz),
+      applied: p.applied,
+      flagged: p.flagged,
+      flagReason: p.flagReason,
+      resolution: p.resolution,
+      recordedBy: recordedByName,
+    })),
+    voidedAt: i.voidedAt,
+    voidReason: i.voidReason,
+    replaces: replaces ? { id: replaces.id, number: replaces.number, label: invoiceLabel(replaces.number) } : null,
+    replacedBy: replacedBy ? { id: replacedBy.id, number: replacedBy.number, label: invoiceLabel(replacedBy.number) } : null,
+  };
+}
+
+export type InvoiceDetail = NonNullable<Awaited<ReturnType<typeof getInvoiceDetail>>>;
+
+/** Payments of some invoices, for statements and exports. */
+export async function paymentsOfAccount(accountId: string | null, fromIso: string, toIso: string) {
+  return getDb()
+    .select({
+      id: payments.id,
+      invoiceId: payments.invoiceId,
+      invoiceNumber: invoices.number,
+      workOrderNumber: workOrders.number,
+      unitNumber: units.unitNumber,
+      poNumber: invoices.poNumber,
+      accountId: payments.accountId,
+      method: payments.method,
+      amountCents: payments.amountCents,
+      reference: payments.reference,
+      receivedAt: payments.receivedAt,
+      applied: payments.applied,
+      flagged: payments.flagged,
+      resolution: payments.resolution,
+    })
+    .from(payments)
+    .innerJoin(invoices, eq(invoices.id, payments.invoiceId))
+    .innerJoin(workOrders, eq(workOrders.id, invoices.workOrderId))
+    .innerJoin(units, eq(units.id, workOrders.unitId))
+    .where(
+      and(
+        accountId ? eq(payments.accountId, accountId) : undefined,
+        sql`${payments.receivedAt} >= ${fromIso}`,
+        lt(payments.receivedAt, toIso),
+      ),
+    )
+    .orderBy(asc(payments.receivedAt));
+}
