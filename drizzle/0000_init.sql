@@ -170,6 +170,7 @@ CREATE TABLE `finding_readings` (
 	`finding_id` text NOT NULL,
 	`position` integer DEFAULT 0 NOT NULL,
 	`kind` text NOT NULL,
+	`location` text DEFAULT '' NOT NULL,
 	`input` text NOT NULL,
 	`value` real NOT NULL,
 	`unit` text NOT NULL,
@@ -493,6 +494,7 @@ CREATE TABLE `work_orders` (
 );
 --> statement-breakpoint
 CREATE UNIQUE INDEX `work_orders_number_unique` ON `work_orders` (`number`);--> statement-breakpoint
+CREATE UNIQUE INDEX `work_orders_one_open_per_unit` ON `work_orders` (`unit_id`) WHERE status <> 'released';--> statement-breakpoint
 CREATE INDEX `work_orders_account_status_idx` ON `work_orders` (`account_id`,`status`);--> statement-breakpoint
 CREATE INDEX `work_orders_unit_idx` ON `work_orders` (`unit_id`);--> statement-breakpoint
 CREATE INDEX `work_orders_tech_idx` ON `work_orders` (`assigned_tech_id`);
