@@ -1,5 +1,7 @@
 import { existsSync } from "node:fs";
 import { startFakeSmtp } from "./smtp/server";
+import { startFakeUploadThing } from "./uploadthing/server";
+import { fakeStorageDir } from "./uploadthing/storage-dir";
 
 // Read the same .env files Next.js reads, so "is a real key configured?" has one answer.
 for (const file of [".env.local", ".env"]) if (existsSync(file)) process.loadEnvFile(file);
@@ -13,6 +15,14 @@ async function main() {
       httpPort: Number(process.env.FAKE_SMTP_HTTP_PORT ?? 2526),
     });
     started.push(`mail catcher: smtp://127.0.0.1:${smtp.smtpPort} (caught mail at /dev/mail for the owner)`);
+  }
+  if (!process.env.UPLOADTHING_TOKEN) {
+    // The app derives the same fake token and address from FAKE_UPLOADTHING_PORT (lib/uploads/config.ts).
+    const uploads = await startFakeUploadThing({
+      port: Number(process.env.FAKE_UPLOADTHING_PORT ?? 12112),
+      storageDir: fakeStorageDir(),
+    });
+    started.push(`uploads: ${uploads.url} (files kept in ${fakeStorageDir()})`);
   }
   console.log(started.length ? `Local fakes running:\n  ${started.join("\n  ")}` : "All services configured; no fakes started.");
 }

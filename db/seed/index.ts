@@ -2,12 +2,17 @@ import { openDatabase } from "@/db/client";
 import { shopSettings } from "@/db/schema";
 import { seedAccounts } from "./accounts";
 import type { SeedContext } from "./context";
+import { storeDemoPhotos } from "./demo-photos";
+import { seedFindings } from "./findings";
 import { demoPasswordHash, seedShop } from "./shop";
 import { seedUnits } from "./units";
 import { seedWorkOrders } from "./work-orders";
 
 /** Loads the invented demo world (product.md's scenario) into an empty database, in one transaction. */
-export async function seedDatabase(url: string, options: { ifEmpty?: boolean; authToken?: string; now?: Date } = {}) {
+export async function seedDatabase(
+  url: string,
+  options: { ifEmpty?: boolean; authToken?: string; now?: Date; photos?: boolean } = {},
+) {
   const { client, db } = openDatabase(url, options.authToken);
   try {
     const existing = await db.select({ id: shopSettings.id }).from(shopSettings).limit(1);
@@ -16,12 +21,15 @@ export async function seedDatabase(url: string, options: { ifEmpty?: boolean; au
       throw new Error("The database already has data. Use `npm run db:reset` to start over.");
     }
     const passwordHash = await demoPasswordHash();
+    // Stored before the transaction: the upload service is not part of it.
+    const demoPhotos = options.photos === false ? null : await storeDemoPhotos();
     await db.transaction(async (tx) => {
       const ctx: SeedContext = { db: tx, now: options.now ?? new Date(), ids: new Map() };
       await seedShop(ctx, passwordHash);
       await seedAccounts(ctx, passwordHash);
       await seedUnits(ctx);
       await seedWorkOrders(ctx);
+      await seedFindings(ctx, demoPhotos);
     });
     return { seeded: true as const };
   } finally {
