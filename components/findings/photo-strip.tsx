@@ -1,6 +1,6 @@
 "use client";
 
-import { useRef, useState } from "react";
+import { useEffect, useRef, useState } from "react";
 
 export interface PhotoView {
   id: string;
@@ -14,13 +14,14 @@ export interface PhotoView {
 /** Thumbnails in a row; a tap opens the full-size photo over the page, with next and previous. */
 export function PhotoStrip({ photos, title }: { photos: readonly PhotoView[]; title: string }) {
   const dialog = useRef<HTMLDialogElement>(null);
-  const [open, setOpen] = useState(0);
+  // Which photo is open, or null: the full-size image is fetched only when someone asks for it.
+  const [open, setOpen] = useState<number | null>(null);
+  useEffect(() => {
+    if (open !== null && !dialog.current?.open) dialog.current?.showModal();
+  }, [open]);
   if (!photos.length) return null;
-  const current = photos[open] ?? photos[0];
-  const show = (i: number) => {
-    setOpen(i);
-    dialog.current?.showModal();
-  };
+  const current = open === null ? null : (photos[open] ?? null);
+  const step = (by: number) => setOpen((i) => ((i ?? 0) + by + photos.length) % photos.length);
   return (
     <>
       <ul className="flex flex-wrap gap-2" data-testid="photo-strip">
@@ -28,7 +29,7 @@ export function PhotoStrip({ photos, title }: { photos: readonly PhotoView[]; ti
           <li key={p.id}>
             <button
               type="button"
-              onClick={() => show(i)}
+              onClick={() => setOpen(i)}
               className="block overflow-hidden rounded-card border-2 border-rule hover:border-ink"
               aria-label={`Photo ${i + 1} of ${photos.length} for “${title}”: open full size`}
             >
@@ -42,6 +43,7 @@ export function PhotoStrip({ photos, title }: { photos: readonly PhotoView[]; ti
       <dialog
         ref={dialog}
         className="m-auto max-h-[96dvh] w-[min(96vw,72rem)] rounded-card bg-ink p-0 text-paper backdrop:bg-black/80"
+        onClose={() => setOpen(null)}
         onClick={(e) => {
           if (e.target === dialog.current) dialog.current?.close();
         }}
@@ -51,7 +53,7 @@ export function PhotoStrip({ photos, title }: { photos: readonly PhotoView[]; ti
           <div className="flex flex-col">
             <div className="flex items-center justify-between gap-2 px-3 py-2 text-sm">
               <span>
-                {open + 1} of {photos.length} · {title}
+                {(open ?? 0) + 1} of {photos.length} · {title}
               </span>
               <button type="button" className="min-h-touch min-w-touch rounded-card border border-paper/40 px-3 font-semibold" onClick={() => dialog.current?.close()}>
                 Close
@@ -60,7 +62,7 @@ export function PhotoStrip({ photos, title }: { photos: readonly PhotoView[]; ti
             {/* eslint-disable-next-line @next/next/no-img-element */}
             <img
               src={current.url}
-              alt={`Full-size photo ${open + 1} for “${title}”`}
+              alt={`Full-size photo ${(open ?? 0) + 1} for “${title}”`}
               width={current.width ?? undefined}
               height={current.height ?? undefined}
               className="max-h-[80dvh] w-full object-contain"
@@ -68,10 +70,10 @@ export function PhotoStrip({ photos, title }: { photos: readonly PhotoView[]; ti
             />
             {photos.length > 1 ? (
               <div className="flex justify-between gap-2 p-2">
-                <button type="button" className="min-h-touch flex-1 rounded-card border border-paper/40 font-semibold" onClick={() => setOpen((open + photos.length - 1) % photos.length)}>
+                <button type="button" className="min-h-touch flex-1 rounded-card border border-paper/40 font-semibold" onClick={() => step(-1)}>
                   ‹ Previous
                 </button>
-                <button type="button" className="min-h-touch flex-1 rounded-card border border-paper/40 font-semibold" onClick={() => setOpen((open + 1) % photos.length)}>
+                <button type="button" className="min-h-touch flex-1 rounded-card border border-paper/40 font-semibold" onClick={() => step(1)}>
                   Next ›
                 </button>
               </div>

@@ -51,7 +51,7 @@ const FINDINGS: FindingSeed[] = [
       { location: "Front axle, left", input: { kind: "brake_stroke", chamberType: 24, strokeClass: "standard", value: 1.75 } },
       { location: "Front axle, right", input: { kind: "brake_stroke", chamberType: 24, strokeClass: "standard", value: 1.625 } },
       { location: "Steer, left", input: { kind: "tread_depth", position: "steer", value: 5, unit: "32nds" } },
-      { location: "Drive, outer right", input: { kind: "tread_depth", position: "other", value: 1.5, unit: "32nds" } },
+      { location: "Drive, outer right", input: { kind: "tread_depth", position: "other", value: 3, unit: "32nds" } },
     ],
   },
   {

@@ -2,7 +2,7 @@
 // handler and UTApi) against the local fake in mocks/uploadthing, then onto a finding, then back
 // out through the scoped photo routes. Sources: the SDK's protocol as the fake's own test names
 // it; PNG/JPEG signatures and the EXIF GPS pointer as in tests/unit/uploads/photo-rules.test.ts.
-import { mkdtemp, readdir, rm } from "node:fs/promises";
+import { mkdtemp, readFile, readdir, rm } from "node:fs/promises";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { eq } from "drizzle-orm";
@@ -134,6 +134,27 @@ describe("a technician's finding with two photos, through the upload SDK and the
       expect((await served(photoThumb, p.photoId, other)).status).toBe(404);
     }
     expect((await served(photoFull, ok[0]!.photoId, "")).status).toBe(401);
+  });
+
+  it("takes a phone's HEIC photo and serves it as a plain JPEG (HEVC-coded HEIF, decoded by heic-convert)", async () => {
+    const wo = await workOrder(1044);
+    const heic = await readFile(join(import.meta.dirname, "..", "fixtures", "brake-chamber-drawing.heic"));
+    const [result] = await upload([new File([new Uint8Array(heic)], "IMG_0042.HEIC", { type: "image/heic" })], wo.id);
+    const data = result?.serverData as PhotoUploadResult;
+    if (!data.ok) throw new Error(data.error);
+    expect([data.width, data.height]).toEqual([640, 480]);
+    const res = await call(postFinding, {
+      path: `/api/v1/work-orders/${wo.id}/findings`,
+      params: { id: wo.id },
+      as: TECH,
+      body: { title: "Chamber clamp ring", severity: "note", photoIds: [data.photoId] },
+    });
+    expect(res.status).toBe(201);
+    const full = await served(photoFull, data.photoId, await sessionCookie("transport@alder-falls-schools.example"));
+    expect(full.headers.get("content-type")).toBe("image/jpeg");
+    const bytes = new Uint8Array(await full.arrayBuffer());
+    expect((await sharp(bytes).metadata()).format).toBe("jpeg");
+    expect(jpegHasGps(bytes)).toBe(false);
   });
 
   it("refuses a 20 MB file before anything is uploaded, with its size in the message", async () => {
