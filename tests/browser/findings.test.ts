@@ -59,6 +59,7 @@ describe("a technician's finding reaches the fleet live", () => {
     const tech = await shop.newPage();
     await signIn(tech, "tech@quarry-road.example");
     await tech.getByRole("heading", { name: /Assigned to you/ }).waitFor();
+    await screenshot(tech, "floor-tech-phone");
     await tech.getByTestId("floor-card").filter({ hasText: "T-9" }).first().click();
     await tech.getByRole("link", { name: "+ Add a finding" }).click();
     await tech.getByRole("heading", { name: "Add a finding" }).waitFor();
@@ -134,10 +135,10 @@ describe("a technician's finding reaches the fleet live", () => {
     await signIn(writer, "writer@quarry-road.example");
     await writer.getByTestId("floor-card").filter({ hasText: "T-14" }).first().click();
     await writer.getByRole("heading", { name: /Findings/ }).waitFor();
-    // Seeded findings: drawn photos and readings on both sides of their limits.
+    // Seeded findings: drawn photos, readings within and at their limits (beyond ones are on Bus 22 and T-9).
     expect(await writer.getByTestId("finding").count()).toBeGreaterThanOrEqual(3);
     expect(await writer.locator('[data-testid="reading"][data-verdict="within"]').count()).toBeGreaterThan(0);
-    expect(await writer.locator('[data-testid="reading"][data-verdict="beyond"]').count()).toBeGreaterThan(0);
+    expect(await writer.locator('[data-testid="reading"][data-verdict="at_limit"]').count()).toBeGreaterThan(0);
     await screenshot(writer, "work-order-findings-writer-desktop");
     await writer.getByLabel("Status").selectOption("ready");
     await writer.getByRole("button", { name: "Move to Ready for pickup" }).click();
@@ -156,6 +157,11 @@ describe("a technician's finding reaches the fleet live", () => {
     const context = await newContext(browser, PHONE);
     const page = await context.newPage();
     await signIn(page, "transport@alder-falls-schools.example");
+    // The school district's home puts the Out of service bus first, marked with the word and its shape.
+    const firstInShop = page.getByTestId("fleet-unit-in-shop").first();
+    expect(await firstInShop.innerText()).toContain("Bus 22");
+    expect(await firstInShop.locator('[data-severity="out_of_service"]').innerText()).toBe("Out of service");
+    await screenshot(page, "fleet-home-approver-phone");
     await page.getByTestId("fleet-unit-in-shop").filter({ hasText: "Bus 22" }).click();
     await page.getByRole("heading", { name: "Unit Bus 22" }).waitFor();
     const first = page.getByTestId("finding").first();
