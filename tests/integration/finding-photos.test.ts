@@ -157,6 +157,17 @@ describe("a technician's finding with two photos, through the upload SDK and the
     expect(jpegHasGps(bytes)).toBe(false);
   });
 
+  it("works the same under `next dev`, where the fake streams the callback back to the route handler", async () => {
+    const wo = await workOrder(1044);
+    process.env.UPLOADTHING_IS_DEV = "true";
+    try {
+      const [result] = await upload([await pngPhoto("dev-mode.png")], wo.id);
+      expect(result?.serverData).toMatchObject({ ok: true, name: "dev-mode.png" });
+    } finally {
+      delete process.env.UPLOADTHING_IS_DEV;
+    }
+  });
+
   it("refuses a 20 MB file before anything is uploaded, with its size in the message", async () => {
     const wo = await workOrder(1044);
     const before = (await readdir(storage)).length;
