@@ -1,10 +1,13 @@
-import { createClient, type Client } from "@libsql/client";
+import { createClient, type Client, type ResultSet } from "@libsql/client";
 import { drizzle, type LibSQLDatabase } from "drizzle-orm/libsql";
+import type { BaseSQLiteDatabase } from "drizzle-orm/sqlite-core";
 import * as schema from "./schema";
 import { env } from "@/lib/env";
 
 export type Db = LibSQLDatabase<typeof schema>;
 export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
+/** Either the database or an open transaction: for reads that run both inside and outside a write. */
+export type Reader = BaseSQLiteDatabase<"async", ResultSet, typeof schema>;
 
 interface Handle {
   url: string;

@@ -50,7 +50,7 @@ export function FleetUnits({ initialUnits, initialOrders }: { initialUnits: Unit
             return (
               <li key={u.id} data-testid="fleet-unit-in-shop">
                 <Link
-                  href={`/fleet/units/${u.id}`}
+                  href={u.status === "waiting_approval" && u.workOrderId ? `/fleet/work-orders/${u.workOrderId}` : `/fleet/units/${u.id}`}
                   className="block rounded-card border-2 border-ink bg-paper-card p-4 no-underline hover:bg-paper-deep"
                 >
                   <div className="flex flex-wrap items-baseline justify-between gap-2">
@@ -64,6 +64,9 @@ export function FleetUnits({ initialUnits, initialOrders }: { initialUnits: Unit
                   </div>
                   {wo?.title ? <p className="mt-2 font-semibold">{wo.title}</p> : null}
                   {wo?.lastNote ? <p className="mt-1 text-sm">“{wo.lastNote}”</p> : null}
+                  {u.status === "waiting_approval" && wo ? (
+                    <p className="mt-2 font-bold text-rust-deep underline underline-offset-4">Review the estimate ›</p>
+                  ) : null}
                   <p className="mt-2 text-xs text-ink-faint">
                     Updated {formatAgo(u.updatedAt, now)}
                     {wo?.promisedAt ? ` · promised ${formatDateTime(wo.promisedAt)}` : ""}

@@ -56,20 +56,28 @@ export function FloorBoard({ initial, userId, isTech }: { initial: ListResponse;
       {isTech ? <h2 className="-mb-3 text-xl font-bold">Everything on the Floor</h2> : null}
       {OPEN_STATUSES.map((status) => {
         const group = workOrders.filter((w) => w.status === status);
+        // Swimlanes on a desktop (status on the left, units flowing right); stacked on a phone.
         return (
-          <section key={status} aria-label={status} data-testid={`floor-lane-${status}`}>
-            <div className="mb-2 flex items-center gap-3 border-b border-rule pb-1">
+          <section
+            key={status}
+            aria-label={status}
+            data-testid={`floor-lane-${status}`}
+            className="border-t border-rule pt-3 lg:grid lg:grid-cols-[12rem_1fr] lg:gap-4"
+          >
+            <div className="mb-2 flex items-center gap-3 lg:flex-col lg:items-start">
               <StatusPill status={status} />
-              <span className="figures text-sm text-ink-faint">{group.length}</span>
+              <span className="figures text-sm text-ink-faint">
+                {group.length} unit{group.length === 1 ? "" : "s"}
+              </span>
             </div>
             {group.length ? (
-              <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
+              <div className="grid gap-3 sm:grid-cols-2 xl:grid-cols-3">
                 {group.map((w) => (
                   <WorkOrderCard key={w.id} wo={w} now={now} href={href(w)} />
                 ))}
               </div>
             ) : (
-              <p className="text-sm text-ink-faint">None.</p>
+              <p className="text-sm text-ink-faint lg:self-center">None.</p>
             )}
           </section>
         );

@@ -14,9 +14,11 @@ export function AppShell({
   orgName,
   nav,
   user,
+  tokensHref,
   children,
 }: {
   home: string;
+  tokensHref: string;
   orgName: string;
   nav: NavItem[];
   user: { name: string; role: Role };
@@ -33,7 +35,7 @@ export function AppShell({
           </Link>
           <nav aria-label="Main" className="order-last -mx-3 flex w-full overflow-x-auto sm:order-none sm:mx-0 sm:w-auto">
             {nav.map((item) => (
-              <NavLink key={item.href} href={item.href}>
+              <NavLink key={item.href} href={item.href} exact={nav.some((other) => other.href !== item.href && other.href.startsWith(`${item.href}/`))}>
                 {item.label}
               </NavLink>
             ))}
@@ -43,6 +45,9 @@ export function AppShell({
               <span className="block font-semibold">{user.name}</span>
               <span className="block text-ink-faint">{ROLE_LABELS[user.role]}</span>
             </span>
+            <Link href={tokensHref} className="hidden min-h-touch items-center px-2 text-sm text-ink-soft sm:flex">
+              API tokens
+            </Link>
             <SignOutButton />
           </div>
         </div>

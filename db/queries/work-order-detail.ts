@@ -149,3 +149,24 @@ export async function loadLatestDecisions(workOrderId: string) {
   for (const r of rows) if (!latest.has(r.lineId)) latest.set(r.lineId, r);
   return { latest, all: rows };
 }
+
+/** Internal, unscoped: the facts an e-mail about a work order needs (never returned to a browser). */
+export async function workOrderForMail(id: string) {
+  const [row] = await getDb()
+    .select({
+      id: workOrders.id,
+      number: workOrders.number,
+      accountId: workOrders.accountId,
+      createdBy: workOrders.createdBy,
+      assignedTechId: workOrders.assignedTechId,
+      title: workOrders.title,
+      unitId: workOrders.unitId,
+      unitNumber: units.unitNumber,
+    })
+    .from(workOrders)
+    .innerJoin(units, eq(units.id, workOrders.unitId))
+    .where(eq(workOrders.id, id))
+    .limit(1);
+  if (!row) throw new Error(`work order ${id} vanished`);
+  return row;
+}

@@ -1,6 +1,7 @@
 import { openDatabase } from "@/db/client";
 import { shopSettings } from "@/db/schema";
 import { seedAccounts } from "./accounts";
+import { seedEstimates } from "./estimates";
 import type { SeedContext } from "./context";
 import { storeDemoPhotos } from "./demo-photos";
 import { seedFindings } from "./findings";
@@ -30,6 +31,7 @@ export async function seedDatabase(
       await seedUnits(ctx);
       await seedWorkOrders(ctx);
       await seedFindings(ctx, demoPhotos);
+      await seedEstimates(ctx);
     });
     return { seeded: true as const };
   } finally {

@@ -56,3 +56,9 @@ export async function call<T = Problem>(
   }
   return { status: response.status, body: parsed as T, headers: response.headers };
 }
+
+/** The SessionUser the guard would build for a demo user (for calling db/queries writes directly). */
+export async function sessionUser(email: string): Promise<import("@/lib/auth/session-user").SessionUser> {
+  const u = await userByEmail(email);
+  return { id: u.id, name: u.name, email: u.email, role: u.role, accountId: u.accountId, signingLimitCents: u.signingLimitCents, via: "session" };
+}

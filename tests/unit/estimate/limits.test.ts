@@ -37,6 +37,12 @@ describe("signing limit", () => {
     });
   });
 
+  it("one cent over the limit is refused", () => {
+    // $3,760.01 + $1,240.00 = $5,000.01 > $5,000.00
+    const v = checkSigningLimit({ workOrderNumber: "W-1042", usedCents: 376_001, newCents: 124_000, limitCents: 500_000 });
+    expect(v).toMatchObject({ ok: false, code: "signing_limit_exceeded", amounts: { afterCents: 500_001 } });
+  });
+
   it("a credit is never refused, even over the limit", () => {
     expect(checkSigningLimit({ workOrderNumber: "W-1", usedCents: 600_000, newCents: -5_000, limitCents: 500_000 }).ok).toBe(true);
   });

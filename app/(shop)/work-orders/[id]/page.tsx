@@ -1,12 +1,16 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { DecisionLog } from "@/components/estimate/decision-log";
+import { DeferredOfferPanel } from "@/components/estimate/deferred-offer";
+import { EstimateEditor } from "@/components/estimate/estimate-editor";
+import { TimeClock } from "@/components/estimate/time-clock";
 import { WorkOrderFindings } from "@/components/findings/work-order-findings";
 import { Card, CardTitle } from "@/components/ui/card";
 import { ConcernList } from "@/components/work-order/concern-list";
 import { StatusMover } from "@/components/work-order/status-mover";
 import { Timeline } from "@/components/work-order/timeline";
 import { WorkOrderHeader } from "@/components/work-order/wo-header";
-import { findWorkOrder, loadConcerns, loadFindings, loadTimeline } from "@/db/queries/work-order-detail";
+import { loadShopWorkOrderPage } from "@/db/queries/shop-work-order-page";
 import { requireUser } from "@/lib/auth/current-user";
 import { CAN, hasRole } from "@/lib/auth/policy";
 
@@ -15,32 +19,57 @@ export const metadata: Metadata = { title: "Work order" };
 export default async function ShopWorkOrderPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
   const user = await requireUser();
-  const wo = await findWorkOrder(user, id);
-  if (!wo) notFound();
-  const [timeline, concerns, findings] = await Promise.all([loadTimeline(wo.id), loadConcerns(wo.id), loadFindings(wo.id)]);
+  const page = await loadShopWorkOrderPage(user, id);
+  if (!page) notFound();
+  const { view } = page;
+  const canPrice = hasRole(user, CAN.writeEstimates);
+  const describe = (lineId: string) => view.lines.find((l) => l.id === lineId)?.description ?? "Removed line";
   return (
     <>
-      <WorkOrderHeader wo={wo} unitHref={`/units/${wo.unitId}`} />
-      <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
-        <div className="flex flex-col gap-4">
-          <WorkOrderFindings workOrderId={wo.id} findings={findings} canAdd={wo.status !== "released" && hasRole(user, CAN.postFindings)} />
-          <Card>
-            <CardTitle>Concerns</CardTitle>
-            <ConcernList concerns={concerns} />
-          </Card>
-        </div>
-        <div className="flex flex-col gap-4">
-          {hasRole(user, CAN.moveStatus) ? (
+      <WorkOrderHeader wo={view} unitHref={`/units/${view.unitId}`} />
+      <div className="flex flex-col gap-4">
+        <div className="grid gap-4 lg:grid-cols-2">
+          <div className="flex min-w-0 flex-col gap-4">
+            <WorkOrderFindings
+              workOrderId={view.id}
+              findings={view.findings}
+              canAdd={view.status !== "released" && hasRole(user, CAN.postFindings)}
+            />
             <Card>
-              <CardTitle>Move this unit</CardTitle>
-              <StatusMover workOrderId={wo.id} status={wo.status} unitNumber={wo.unitNumber} />
+              <CardTitle>Concerns</CardTitle>
+              <ConcernList concerns={view.concerns} />
             </Card>
-          ) : null}
-          <Card>
-            <CardTitle>Timeline</CardTitle>
-            <Timeline entries={timeline} />
-          </Card>
+          </div>
+          <div className="flex min-w-0 flex-col gap-4">
+            {hasRole(user, CAN.moveStatus) ? (
+              <Card>
+                <CardTitle>Move this unit</CardTitle>
+                <StatusMover workOrderId={view.id} status={view.status} unitNumber={view.unitNumber} />
+              </Card>
+            ) : null}
+            <Card>
+              <CardTitle>Time and progress</CardTitle>
+              <TimeClock workOrderId={view.id} lines={page.clockLines} />
+            </Card>
+            <Card>
+              <CardTitle>Timeline</CardTitle>
+              <Timeline entries={view.timeline} />
+            </Card>
+          </div>
         </div>
+        {canPrice ? (
+          <Card>
+            <CardTitle>Estimate</CardTitle>
+            <div className="flex flex-col gap-4">
+              <DeferredOfferPanel workOrderId={view.id} offers={page.deferred} />
+              <EstimateEditor view={view} rates={page.rates} taxDefaults={page.taxDefaults} shop={page.shop} account={page.account} taxExempt={page.taxExempt} />
+            </div>
+          </Card>
+        ) : null}
+        <Card>
+          <CardTitle>Decisions</CardTitle>
+          <DecisionLog entries={view.decisionLog} describe={describe} />
+        </Card>
       </div>
     </>
   );

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { LiveVisit, LiveVisitStatus } from "@/components/fleet/live-visit";
+import { ButtonLink } from "@/components/ui/button";
 import { Card, CardTitle } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { DeferredWork } from "@/components/units/deferred-work";
@@ -20,18 +21,25 @@ export default async function FleetUnitPage({ params }: { params: Promise<{ id: 
   // Scoped to the user's account: another account's unit is simply not found.
   const [detail, visit] = await Promise.all([getUnitDetail(user, id), currentVisit(user, id)]);
   if (!detail || !visit) notFound();
-  const { unit, readings, history, deferred } = detail;
+  const { unit, openWorkOrder, readings, history, deferred } = detail;
   return (
     <>
       <PageHeader title={`Unit ${unit.unitNumber}`} kicker={unit.description}>
         <LiveVisitStatus unitId={unit.id} initial={visit} />
       </PageHeader>
+      {openWorkOrder ? (
+        <p className="mb-4">
+          <ButtonLink href={`/fleet/work-orders/${openWorkOrder.id}`} data-testid="open-estimate">
+            {openWorkOrder.status === "waiting_approval" ? "Review the estimate and decide" : "See this visit's estimate"}
+          </ButtonLink>
+        </p>
+      ) : null}
       <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
         <div className="flex flex-col gap-4">
           <LiveVisit unitId={unit.id} initial={visit} />
           <Card>
             <CardTitle>Visits</CardTitle>
-            <WorkOrderHistory rows={history} />
+            <WorkOrderHistory rows={history} hrefFor={(woId) => `/fleet/work-orders/${woId}`} />
           </Card>
           <Card>
             <CardTitle>Deferred work</CardTitle>

@@ -1,0 +1,26 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { ApprovalView } from "@/components/approval/approval-view";
+import { WorkOrderHeader } from "@/components/work-order/wo-header";
+import { getDb } from "@/db/client";
+import { accounts } from "@/db/schema";
+import { workOrderView } from "@/db/queries/work-order-view";
+import { requireUser } from "@/lib/auth/current-user";
+import { eq } from "drizzle-orm";
+
+export const metadata: Metadata = { title: "Estimate" };
+
+export default async function FleetWorkOrderPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const user = await requireUser();
+  // Scoped: another account's work order is simply not found.
+  const view = await workOrderView(user, id);
+  if (!view) notFound();
+  const [account] = await getDb().select({ taxExempt: accounts.taxExempt }).from(accounts).where(eq(accounts.id, view.accountId)).limit(1);
+  return (
+    <>
+      <WorkOrderHeader wo={view} unitHref={`/fleet/units/${view.unitId}`} />
+      <ApprovalView initial={view} canDecide={user.role === "approver"} taxExempt={account?.taxExempt ?? false} />
+    </>
+  );
+}

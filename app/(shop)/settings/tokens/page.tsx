@@ -1,0 +1,18 @@
+import type { Metadata } from "next";
+import { ApiTokens } from "@/components/settings/api-tokens";
+import { PageHeader } from "@/components/ui/page-header";
+import { listMyTokens } from "@/db/queries/api-tokens";
+import { requireUser } from "@/lib/auth/current-user";
+
+export const metadata: Metadata = { title: "API tokens" };
+
+export default async function TokensPage() {
+  const user = await requireUser();
+  const tokens = await listMyTokens(user);
+  return (
+    <>
+      <PageHeader title="Personal API tokens" kicker="For your own scripts, with the Fleet API (/api/v1)" />
+      <ApiTokens tokens={tokens} />
+    </>
+  );
+}

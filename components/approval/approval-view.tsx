@@ -1,0 +1,143 @@
+"use client";
+
+import { useState } from "react";
+import useSWR from "swr";
+import { ApiError, fetchJson, LIVE_REFRESH_MS } from "@/components/data/fetcher";
+import { DecisionLog } from "@/components/estimate/decision-log";
+import { TotalsBar } from "@/components/estimate/totals-bar";
+import { Card, CardTitle } from "@/components/ui/card";
+import { Timeline } from "@/components/work-order/timeline";
+import { Button } from "@/components/ui/button";
+import type { WorkOrderView } from "@/db/queries/work-order-view";
+import type { Decision } from "@/lib/domain";
+import { formatCents } from "@/lib/money";
+import { ApprovalLine } from "./approval-line";
+import { LimitsPanel } from "./limits-panel";
+
+async function post(url: string, body: unknown) {
+  return fetchJson(url, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
+}
+
+/**
+ * The approver's page: every line waiting on them, grouped by concern, with
+ * Approve / Decline / Hold for later and Approve all. The server checks every
+ * limit; a refusal comes back in words and amounts and is shown on the line.
+ */
+export function ApprovalView({
+  initial,
+  canDecide,
+  taxExempt,
+  findingsFor,
+}: {
+  initial: WorkOrderView;
+  canDecide: boolean;
+  taxExempt: boolean;
+  findingsFor?: Record<string, React.ReactNode>;
+}) {
+  const key = `/api/v1/work-orders/${initial.id}`;
+  const { data, mutate } = useSWR<WorkOrderView>(key, fetchJson, { fallbackData: initial, refreshInterval: LIVE_REFRESH_MS });
+  const view = data ?? initial;
+  const [busy, setBusy] = useState(false);
+  const [refusals, setRefusals] = useState<Record<string, string>>({});
+  const [banner, setBanner] = useState<{ kind: "ok" | "refused"; text: string } | null>(null);
+
+  const pending = view.lines.filter((l) => l.state === "proposed");
+  const groups = [
+    ...view.concerns.map((c, i) => ({ id: c.id, title: `${i + 1}. ${c.complaint}`, cause: c.cause })),
+    { id: "", title: "Other work", cause: "" },
+  ];
+
+  async function run(action: () => Promise<unknown>, lineId: string | null, success: string) {
+    setBusy(true);
+    setBanner(null);
+    try {
+      await action();
+      setRefusals((r) => {
+        const next = { ...r };
+        if (lineId) delete next[lineId];
+        return next;
+      });
+      setBanner({ kind: "ok", text: success });
+    } catch (error) {
+      let text = error instanceof ApiError ? error.message : "Cotter could not be reached. Nothing was decided; try again.";
+      if (error instanceof ApiError && error.code === "signing_limit_exceeded") {
+        text += " Another approver on your account with a higher signing limit can approve it.";
+      }
+      const refusedLine = error instanceof ApiError ? ((error.body as { lineId?: string } | null)?.lineId ?? lineId) : lineId;
+      if (refusedLine) setRefusals((r) => ({ ...r, [refusedLine]: text }));
+      setBanner({ kind: "refused", text });
+    } finally {
+      setBusy(false);
+      await mutate();
+    }
+  }
+
+  const decideOne = (lineId: string, version: number, decision: Decision, note: string) =>
+    run(() => post(`/api/v1/lines/${lineId}/decision`, { decision, expectedVersion: version, ...(note ? { note } : {}) }), lineId, "Decision saved. The shop has been told.");
+
+  const approveAll = () =>
+    run(
+      () => post(`/api/v1/work-orders/${view.id}/decisions`, { decisions: pending.map((l) => ({ lineId: l.id, decision: "approve", expectedVersion: l.version })) }),
+      null,
+      `Approved ${pending.length} line${pending.length === 1 ? "" : "s"}.`,
+    );
+
+  return (
+    <div className="flex flex-col gap-4">
+      <LimitsPanel limits={view.limits} />
+      {banner ? (
+        <p
+          role={banner.kind === "refused" ? "alert" : "status"}
+          className={`rounded-card border-2 px-3 py-2 text-sm font-semibold ${banner.kind === "refused" ? "border-rust bg-rust-wash text-rust-deep" : "border-ink bg-paper"}`}
+          data-testid="approval-banner"
+        >
+          {banner.text}
+        </p>
+      ) : null}
+      {canDecide && pending.length > 1 ? (
+        <div className="rounded-card border border-rule bg-paper p-3">
+          <p className="text-sm">
+            {pending.length} lines wait for your decision, {formatCents(view.totals.pendingCents)} in all.
+          </p>
+          <Button type="button" className="mt-2 w-full sm:w-auto" disabled={busy} onClick={approveAll} data-testid="approve-all">
+            Approve all {pending.length}
+          </Button>
+        </div>
+      ) : null}
+      {!canDecide ? <p className="text-sm text-ink-soft">Only your account&apos;s approvers can decide on these lines.</p> : null}
+      {groups.map((g) => {
+        const lines = view.lines.filter((l) => (l.concernId ?? "") === g.id);
+        if (!lines.length) return null;
+        return (
+          <section key={g.id || "other"} aria-label={g.title}>
+            <h2 className="text-lg font-bold">{g.title}</h2>
+            {g.cause ? <p className="mb-1 text-sm text-ink-soft">What the technician found: {g.cause}</p> : null}
+            <ul className="flex flex-col gap-2">
+              {lines.map((line) => (
+                <ApprovalLine
+                  key={line.id}
+                  line={line}
+                  canDecide={canDecide}
+                  busy={busy}
+                  refusal={refusals[line.id] ?? null}
+                  onDecide={(decision, note) => void decideOne(line.id, line.version, decision, note)}
+                >
+                  {line.findingId && findingsFor?.[line.findingId] ? findingsFor[line.findingId] : null}
+                </ApprovalLine>
+              ))}
+            </ul>
+          </section>
+        );
+      })}
+      <TotalsBar totals={view.totals} ifAllPendingApprovedCents={view.estimateTotals.ifAllPendingApprovedCents} taxExempt={taxExempt} />
+      <Card>
+        <CardTitle>Decisions</CardTitle>
+        <DecisionLog entries={view.decisionLog} describe={(lineId) => view.lines.find((l) => l.id === lineId)?.description ?? "Removed line"} />
+      </Card>
+      <Card>
+        <CardTitle>Updates from the shop</CardTitle>
+        <Timeline entries={view.timeline} />
+      </Card>
+    </div>
+  );
+}

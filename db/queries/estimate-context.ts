@@ -1,0 +1,93 @@
+import { and, eq, gte, inArray, lt, sql } from "drizzle-orm";
+import type { Reader } from "@/db/client";
+import { accounts, estimateLines, shopSettings, workOrders, type Account, type EstimateLine as LineRow, type ShopSettings as ShopRow } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/session-user";
+import { addDays, startOfDayIso } from "@/lib/dates";
+import { APPROVED_STATES, fiscalYearOf, type AccountSettings, type EstimateLine, type FiscalYear, type ShopSettings } from "@/lib/estimate";
+import { calendarDate } from "@/lib/format";
+import { notFound } from "@/lib/http/problem";
+import { scopedTo } from "./scope";
+
+export function toEstimateLine(row: LineRow): EstimateLine {
+  return {
+    id: row.id,
+    kind: row.kind,
+    quantityMilli: row.quantityMilli,
+    unitPriceCents: row.unitPriceCents,
+    taxable: row.taxable,
+    coreChargeCents: row.coreChargeCents,
+    state: row.state,
+    version: row.version,
+    approvedByUserId: row.approvedByUserId,
+    byStanding: row.byStanding,
+    approvedAmountCents: row.approvedAmountCents,
+    isDiagnosis: row.isDiagnosis,
+  };
+}
+
+export function toAccountSettings(a: Account): AccountSettings {
+  return {
+    taxExempt: a.taxExempt,
+    taxRateMilliPct: a.taxRateMilliPct,
+    shopSuppliesExempt: a.shopSuppliesExempt,
+    standingAuthorisationCents: a.standingAuthorisationCents,
+    repairBudgetCents: a.repairBudgetCents,
+    fiscalYearStartMonth: a.fiscalYearStartMonth,
+    overrunPercentMilli: a.overrunPercentMilli,
+    overrunCapCents: a.overrunCapCents,
+    overrunFloorCents: a.overrunFloorCents,
+  };
+}
+
+export function toShopSettings(s: ShopRow): ShopSettings {
+  return {
+    shopSuppliesRateMilliPct: s.shopSuppliesRateMilliPct,
+    shopSuppliesCapCents: s.shopSuppliesCapCents,
+    shopSuppliesTaxable: s.shopSuppliesTaxable,
+  };
+}
+
+/**
+ * Everything the estimate rules need about one work order, read inside the
+ * caller's transaction so the check and the write see the same rows.
+ */
+export async function loadEstimateContext(tx: Reader, user: SessionUser, workOrderId: string) {
+  const [wo] = await tx
+    .select()
+    .from(workOrders)
+    .where(and(eq(workOrders.id, workOrderId), scopedTo(workOrders.accountId, user)))
+    .limit(1);
+  if (!wo) throw notFound("That work order");
+  const [[account], [shop], lines] = await Promise.all([
+    tx.select().from(accounts).where(eq(accounts.id, wo.accountId)).limit(1),
+    tx.select().from(shopSettings).where(eq(shopSettings.id, 1)).limit(1),
+    tx.select().from(estimateLines).where(eq(estimateLines.workOrderId, wo.id)).orderBy(estimateLines.position, estimateLines.createdAt),
+  ]);
+  if (!account || !shop) throw new Error("work order without account or shop settings");
+  return { wo, account, shop, lines };
+}
+
+export type EstimateContext = Awaited<ReturnType<typeof loadEstimateContext>>;
+
+/** The fiscal year containing `now` for an account, with its UTC bounds in the shop's time zone. */
+export function currentFiscalYear(account: Pick<Account, "fiscalYearStartMonth">, timeZone: string, now = new Date()) {
+  const fy: FiscalYear = fiscalYearOf(calendarDate(now, timeZone), account.fiscalYearStartMonth);
+  return { fy, fromIso: startOfDayIso(fy.startDate, timeZone), toIso: startOfDayIso(addDays(fy.endDate, 1), timeZone) };
+}
+
+/** What the account has approved in the fiscal year, every work order (amounts at approval). */
+export async function budgetUsedCents(tx: Reader, accountId: string, bounds: { fromIso: string; toIso: string }): Promise<number> {
+  const [row] = await tx
+    .select({ total: sql<number>`coalesce(sum(${estimateLines.approvedAmountCents}), 0)` })
+    .from(estimateLines)
+    .innerJoin(workOrders, eq(workOrders.id, estimateLines.workOrderId))
+    .where(
+      and(
+        eq(workOrders.accountId, accountId),
+        inArray(estimateLines.state, [...APPROVED_STATES]),
+        gte(estimateLines.approvedAt, bounds.fromIso),
+        lt(estimateLines.approvedAt, bounds.toIso),
+      ),
+    );
+  return Number(row?.total ?? 0);
+}

@@ -1,0 +1,56 @@
+import { asc, eq } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { accounts, laborRates } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/session-user";
+import { workOrderLabel, type LineKind } from "@/lib/domain";
+import { isApprovedState } from "@/lib/estimate";
+import { lineAmountCents } from "@/lib/money";
+import { toAccountSettings, toShopSettings } from "./estimate-context";
+import { deferredLinesForUnit } from "./estimate-lines";
+import { getShopSettings } from "./settings";
+import { timeSummary } from "./time-clock";
+import { workOrderView } from "./work-order-view";
+
+/** Everything the shop's work-order page shows, in one place. */
+export async function loadShopWorkOrderPage(user: SessionUser, id: string) {
+  const view = await workOrderView(user, id);
+  if (!view) return null;
+  const db = getDb();
+  const [shop, rates, [account], deferred, time] = await Promise.all([
+    getShopSettings(),
+    db.select().from(laborRates).where(eq(laborRates.active, true)).orderBy(asc(laborRates.position)),
+    db.select().from(accounts).where(eq(accounts.id, view.accountId)).limit(1),
+    deferredLinesForUnit(db, view.unitId, view.id),
+    timeSummary(view.id),
+  ]);
+  const taxDefaults: Record<LineKind, boolean> = { labor: shop.taxLabor, part: shop.taxParts, sublet: shop.taxSublet, fee: shop.taxFees };
+  return {
+    view,
+    rates: rates.map((r) => ({ id: r.id, name: r.name, rateCents: r.rateCents, isDefault: r.isDefault })),
+    taxDefaults,
+    shop: toShopSettings(shop),
+    account: toAccountSettings(account!),
+    taxExempt: account!.taxExempt,
+    deferred: deferred.map(({ estimate_lines: l, work_orders: w }) => ({
+      id: l.id,
+      description: l.description,
+      amountCents: lineAmountCents(l.quantityMilli, l.unitPriceCents),
+      state: l.state as "held" | "declined",
+      woLabel: workOrderLabel(w.number),
+      decidedAt: l.updatedAt,
+    })),
+    clockLines: view.lines.map((l) => {
+      const t = time.get(l.id);
+      return {
+        id: l.id,
+        description: l.description,
+        kind: l.kind,
+        state: l.state,
+        isDiagnosis: l.isDiagnosis,
+        approvedMilli: isApprovedState(l.state) ? Math.round(l.quantity * 1000) : 0,
+        usedMilli: t?.usedMilli ?? 0,
+        mySince: t?.runningSince[user.id] ?? null,
+      };
+    }),
+  };
+}

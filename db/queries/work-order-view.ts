@@ -1,0 +1,104 @@
+import { getDb } from "@/db/client";
+import type { SessionUser } from "@/lib/auth/session-user";
+import { isStaff } from "@/lib/auth/policy";
+import { limitsView, priceEstimate } from "@/lib/estimate";
+import { budgetUsedCents, currentFiscalYear, loadEstimateContext, toAccountSettings, toEstimateLine, toShopSettings } from "./estimate-context";
+import { getShopSettings } from "./settings";
+import { findWorkOrder, loadConcerns, loadFindings, loadLatestDecisions, loadTimeline } from "./work-order-detail";
+
+/**
+ * The whole work order as api-v1.md describes it (lines, totals, limits),
+ * plus a few additive fields the pages use. Fleet people never see the shop's
+ * draft lines. Null when the id does not exist or is another account's.
+ */
+export async function workOrderView(user: SessionUser, id: string) {
+  const wo = await findWorkOrder(user, id);
+  if (!wo) return null;
+  const shopRow = await getShopSettings();
+  const db = getDb();
+  const ctx = await loadEstimateContext(db, user, wo.id);
+  const bounds = currentFiscalYear(ctx.account, shopRow.timeZone);
+  const [timeline, concerns, findings, decisions, used] = await Promise.all([
+    loadTimeline(wo.id),
+    loadConcerns(wo.id),
+    loadFindings(wo.id),
+    loadLatestDecisions(wo.id),
+    budgetUsedCents(db, ctx.account.id, bounds),
+  ]);
+  const staff = isStaff(user);
+  const rows = staff ? ctx.lines : ctx.lines.filter((l) => l.state !== "draft");
+  const estimateLines = rows.map(toEstimateLine);
+  const account = toAccountSettings(ctx.account);
+  const pricing = priceEstimate(estimateLines, toShopSettings(ctx.shop), account);
+  const amountOf = new Map(pricing.lines.map((p) => [p.id, p]));
+  const caller = user.role === "approver" ? { id: user.id, signingLimitCents: user.signingLimitCents ?? 0 } : null;
+
+  return {
+    id: wo.id,
+    number: wo.number,
+    label: `W-${wo.number}`,
+    unitId: wo.unitId,
+    accountId: wo.accountId,
+    status: wo.status,
+    promisedAt: wo.promisedAt,
+    updatedAt: wo.updatedAt,
+    title: wo.title,
+    poNumber: wo.poNumber,
+    unitNumber: wo.unitNumber,
+    unitDescription: wo.unitDescription,
+    accountName: wo.accountName,
+    technicianName: wo.technicianName,
+    timeline,
+    concerns,
+    findings: findings.map((f) => ({ ...f, photos: f.photos })),
+    lines: rows.map((l) => {
+      const d = decisions.latest.get(l.id);
+      return {
+        id: l.id,
+        kind: l.kind,
+        description: l.description,
+        quantity: l.quantityMilli / 1000,
+        unitPriceCents: l.unitPriceCents,
+        amountCents: amountOf.get(l.id)?.amountCents ?? 0,
+        taxable: l.taxable,
+        coreChargeCents: l.coreChargeCents,
+        coreTotalCents: amountOf.get(l.id)?.coreTotalCents ?? 0,
+        state: l.state,
+        version: l.version,
+        findingId: l.findingId,
+        concernId: l.concernId,
+        partNumber: l.partNumber,
+        isDiagnosis: l.isDiagnosis,
+        byStanding: l.byStanding,
+        reopenReason: l.reopenReason,
+        deferredFromLineId: l.deferredFromLineId,
+        decision: d
+          ? { by: d.byStanding ? "Standing authorisation" : (d.by ?? "Unknown"), at: d.at, decision: d.decision, amountCents: d.amountCents, note: d.note, lineVersion: d.lineVersion }
+          : null,
+      };
+    }),
+    totals: pricing.totals,
+    estimateTotals: {
+      ifAllPendingApprovedCents: pricing.ifAllPendingApproved.totalCents,
+      coreCents: pricing.approved.coreCents,
+      draftCents: pricing.byState.draft.amountCents,
+    },
+    limits: {
+      ...limitsView({ lines: estimateLines, account, caller, budgetUsedCents: used }),
+      budgetUsedCents: used,
+      fiscalYear: bounds.fy.label,
+    },
+    decisionLog: decisions.all.map((d) => ({
+      lineId: d.lineId,
+      decision: d.decision,
+      by: d.byStanding ? "Standing authorisation" : (d.by ?? "Unknown"),
+      at: d.at,
+      amountCents: d.amountCents,
+      lineVersion: d.lineVersion,
+      note: d.note,
+    })),
+  };
+}
+
+export type WorkOrderView = NonNullable<Awaited<ReturnType<typeof workOrderView>>>;
+export type LineView = WorkOrderView["lines"][number];

@@ -1,0 +1,193 @@
+import { and, eq as eqSql, gte, inArray, sql } from "drizzle-orm";
+import { accounts, decisions, estimateLines, timeEntries, workOrders } from "@/db/schema";
+import type { Decision, LineKind, LineState } from "@/lib/domain";
+import { lineAmountCents } from "@/lib/money";
+import { type SeedContext, daysAgo, id } from "./context";
+
+type By = "standing" | "supervisor" | "trustee" | "transport" | "office";
+const APPROVER_EMAIL: Record<Exclude<By, "standing">, string> = {
+  supervisor: "supervisor@brennan-twp.example",
+  trustee: "trustee@brennan-twp.example",
+  transport: "transport@alder-falls-schools.example",
+  office: "office@kettle-ridge.example",
+};
+
+interface LineSeed {
+  concern?: number;
+  kind: LineKind;
+  description: string;
+  qty: number; // thousandths
+  price: number; // cents
+  taxable?: boolean;
+  core?: number;
+  state: LineState;
+  by?: By;
+  decidedDaysAgo?: number;
+  note?: string;
+  diagnosis?: boolean;
+  partNumber?: string;
+}
+
+const L = (kind: LineKind, description: string, qty: number, price: number, state: LineState, extra: Partial<LineSeed> = {}): LineSeed => ({
+  kind,
+  description,
+  qty,
+  price,
+  state,
+  taxable: kind === "part",
+  ...extra,
+});
+
+/** Estimates on the open visits, chosen so every limit shows on first start (issue: estimates and decisions). */
+const ESTIMATES: Record<string, LineSeed[]> = {
+  "W-1042": [
+    L("labor", "Diagnose plow drift and steering wander", 1000, 15_500, "done", { concern: 0, by: "standing", decidedDaysAgo: 3, diagnosis: true }),
+    L("labor", "Remove, hone and reseal plow lift cylinder", 4500, 14_250, "proposed", { concern: 0 }),
+    L("part", "Lift cylinder seal kit, 3 in bore", 1000, 18_640, "proposed", { concern: 0, partNumber: "SK-30-114" }),
+    L("part", "Hydraulic fluid, AW-32 (gal)", 5000, 1_485, "proposed", { concern: 0 }),
+    L("part", "Moldboard and cutting-edge assembly, 11 ft reversible", 1000, 564_000, "proposed", { concern: 0, partNumber: "MB-11R-02" }),
+    L("labor", "Replace drag link and both tie-rod ends", 3800, 14_250, "proposed", { concern: 1 }),
+    L("part", "Drag link, adjustable", 1000, 41_290, "proposed", { concern: 1, core: 2_500, partNumber: "DL-7731" }),
+    L("part", "Tie-rod end", 2000, 13_875, "proposed", { concern: 1, partNumber: "TRE-2210" }),
+    L("sublet", "Front-end alignment (alignment shop)", 1000, 18_500, "proposed", { concern: 1 }),
+    L("labor", "Annual inspection (49 CFR 396.17)", 2000, 14_250, "proposed", { concern: 2 }),
+    L("part", "Front brake chamber, type 24", 2000, 9_680, "proposed", { concern: 2, partNumber: "BC-24-S" }),
+  ],
+  "W-1043": [
+    L("labor", "Diagnose no-start: battery, cranking and key-off drain tests", 2000, 15_500, "in_progress", { concern: 0, by: "supervisor", decidedDaysAgo: 2, diagnosis: true }),
+  ],
+  "W-1044": [
+    L("labor", "Diagnose brake stroke and slack adjusters", 500, 15_500, "done", { concern: 0, by: "standing", decidedDaysAgo: 1, diagnosis: true }),
+    L("labor", "Replace right rear slack adjuster, adjust all wheel ends", 1500, 14_250, "proposed", { concern: 0 }),
+    L("part", "Automatic slack adjuster, 5.5 in arm", 1000, 16_420, "proposed", { concern: 0, partNumber: "ASA-55-R" }),
+    L("part", "Rear brake shoes and drums, both sides", 1000, 188_000, "proposed", { concern: 0, partNumber: "BSD-165" }),
+  ],
+  "W-1045": [
+    L("labor", "Leak-down test and locate leaks", 800, 15_500, "done", { concern: 0, by: "standing", decidedDaysAgo: 4, diagnosis: true }),
+    L("part", "Glad-hand seal, trailer supply", 2000, 495, "approved", { concern: 0, by: "office", decidedDaysAgo: 3 }),
+    L("part", "Air line, 3/8 in nylon (ft)", 12_000, 185, "approved", { concern: 0, by: "office", decidedDaysAgo: 3 }),
+    L("labor", "Replace service line at rear axle, retest", 1600, 14_250, "in_progress", { concern: 0, by: "office", decidedDaysAgo: 3 }),
+  ],
+  "W-1046": [
+    L("labor", "Remove tilt cylinder, disassemble, inspect", 3200, 14_250, "done", { concern: 0, by: "supervisor", decidedDaysAgo: 5 }),
+    L("sublet", "Re-chrome tilt cylinder rod (machine shop)", 1000, 68_000, "approved", { concern: 0, by: "supervisor", decidedDaysAgo: 5 }),
+    L("part", "Tilt cylinder seal kit", 1000, 21_475, "approved", { concern: 0, by: "supervisor", decidedDaysAgo: 5 }),
+  ],
+  "W-1048": [
+    L("labor", "Trace ABS fault, repair sensor lead", 1400, 14_250, "done", { concern: 0, by: "office", decidedDaysAgo: 4 }),
+    L("part", "Weatherproof splice kit", 1000, 2_350, "done", { concern: 0, by: "office", decidedDaysAgo: 4 }),
+  ],
+  "W-1049": [
+    L("labor", "Diagnose liftgate, repair ground", 1300, 14_250, "done", { concern: 0, by: "supervisor", decidedDaysAgo: 2 }),
+    L("part", "Ground strap, 4 gauge", 1000, 2_875, "done", { concern: 0, by: "supervisor", decidedDaysAgo: 2 }),
+  ],
+  "W-1050": [
+    L("labor", "Pressure-wash radiator and charge-air cooler cores", 2500, 14_250, "proposed", { concern: 0 }),
+    L("part", "Fan belt", 1000, 8_460, "proposed", { concern: 0, partNumber: "FB-8PK-1830" }),
+    L("part", "Coolant, 50/50 premix (gal)", 6000, 1_240, "proposed", { concern: 0 }),
+  ],
+};
+
+/** Deferred work from earlier visits: comes back to be offered on the open work order. */
+const DEFERRED: { wo: string; lines: LineSeed[] }[] = [
+  {
+    wo: "W-1001",
+    lines: [
+      L("part", "Plow cutting edge, carbide insert (plan for spring)", 1000, 74_500, "held", { by: "supervisor", decidedDaysAgo: 60, note: "Next budget year." }),
+      L("labor", "Sandblast and repaint dump body", 9000, 14_250, "declined", { by: "supervisor", decidedDaysAgo: 60, note: "Not this year." }),
+    ],
+  },
+];
+
+export async function seedEstimates(ctx: SeedContext): Promise<void> {
+  for (const [woKey, lines] of Object.entries(ESTIMATES)) await insertLines(ctx, woKey, lines);
+  for (const d of DEFERRED) await insertLines(ctx, d.wo, d.lines);
+  await tightenSchoolBudget(ctx);
+
+  // Diagnosis on T-9: 1.7 of 2.0 approved hours used, so the 80 % warning shows.
+  const [diag] = await ctx.db.select({ id: estimateLines.id }).from(estimateLines).where(eqWo(ctx, "W-1043"));
+  const tech = id(ctx, "user:tech@quarry-road.example");
+  const start = Date.parse(daysAgo(ctx, 1, 14));
+  await ctx.db.insert(timeEntries).values([
+    { lineId: diag!.id, workOrderId: id(ctx, "wo:W-1043"), techId: tech, startedAt: new Date(start).toISOString(), endedAt: new Date(start + 60 * 60_000).toISOString() },
+    { lineId: diag!.id, workOrderId: id(ctx, "wo:W-1043"), techId: tech, startedAt: new Date(start + 3 * 3_600_000).toISOString(), endedAt: new Date(start + 3 * 3_600_000 + 42 * 60_000).toISOString() },
+  ]);
+}
+
+function eqWo(ctx: SeedContext, woKey: string) {
+  return eqSql(estimateLines.workOrderId, id(ctx, `wo:${woKey}`));
+}
+
+async function insertLines(ctx: SeedContext, woKey: string, lines: LineSeed[]): Promise<void> {
+  const woId = id(ctx, `wo:${woKey}`);
+  const [wo] = await ctx.db.select({ accountId: workOrders.accountId }).from(workOrders).where(eqSql(workOrders.id, woId));
+  for (const [position, l] of lines.entries()) {
+    const amount = lineAmountCents(l.qty, l.price);
+    const decided = l.by !== undefined;
+    const approved = decided && ["approved", "in_progress", "done"].includes(l.state);
+    const at = decided ? daysAgo(ctx, l.decidedDaysAgo ?? 1, 16) : daysAgo(ctx, 1, 15);
+    const approverId = l.by && l.by !== "standing" ? id(ctx, `user:${APPROVER_EMAIL[l.by]}`) : null;
+    const [row] = await ctx.db
+      .insert(estimateLines)
+      .values({
+        workOrderId: woId,
+        concernId: l.concern === undefined ? null : (ctx.ids.get(`concern:${woKey}:${l.concern}`) ?? null),
+        position,
+        kind: l.kind,
+        description: l.description,
+        partNumber: l.partNumber ?? "",
+        quantityMilli: l.qty,
+        unitPriceCents: l.price,
+        taxable: l.taxable ?? false,
+        coreChargeCents: l.core ?? 0,
+        isDiagnosis: l.diagnosis ?? false,
+        state: l.state,
+        version: decided ? 3 : 2,
+        approvedByUserId: approved ? approverId : null,
+        byStanding: approved && l.by === "standing",
+        approvedAmountCents: approved ? amount : null,
+        approvedAt: approved ? at : null,
+        createdBy: id(ctx, "user:writer@quarry-road.example"),
+        createdAt: at,
+        updatedAt: at,
+      })
+      .returning({ id: estimateLines.id });
+    if (decided) {
+      const decision: Decision = approved ? "approve" : l.state === "declined" ? "decline" : "hold";
+      await ctx.db.insert(decisions).values({
+        lineId: row!.id,
+        workOrderId: woId,
+        accountId: wo!.accountId,
+        decision,
+        byUserId: approverId,
+        byStanding: l.by === "standing",
+        amountCents: amount,
+        lineVersion: 2,
+        note: l.note ?? "",
+        at,
+      });
+    }
+  }
+}
+
+/**
+ * The school district is close to its repair budget: $1,100 left this fiscal
+ * year (July–June), so the pending brake lines on Bus 22 show the budget
+ * refusal on first start whatever else the demo approved.
+ */
+async function tightenSchoolBudget(ctx: SeedContext): Promise<void> {
+  const accountId = id(ctx, "account:schools");
+  const year = ctx.now.getUTCMonth() + 1 >= 7 ? ctx.now.getUTCFullYear() : ctx.now.getUTCFullYear() - 1;
+  const [row] = await ctx.db
+    .select({ used: sql<number>`coalesce(sum(${estimateLines.approvedAmountCents}), 0)` })
+    .from(estimateLines)
+    .innerJoin(workOrders, eqSql(workOrders.id, estimateLines.workOrderId))
+    .where(
+      and(
+        eqSql(workOrders.accountId, accountId),
+        inArray(estimateLines.state, ["approved", "in_progress", "done"]),
+        gte(estimateLines.approvedAt, `${year}-07-01`),
+      ),
+    );
+  await ctx.db.update(accounts).set({ repairBudgetCents: Number(row?.used ?? 0) + 110_000 }).where(eqSql(accounts.id, accountId));
+}

@@ -1,0 +1,38 @@
+/** Calendar arithmetic in a named time zone, with Intl only (no library, no I/O). */
+
+function offsetMinutes(instant: number, timeZone: string): number {
+  const parts = new Intl.DateTimeFormat("en-US", {
+    timeZone,
+    hourCycle: "h23",
+    year: "numeric",
+    month: "2-digit",
+    day: "2-digit",
+    hour: "2-digit",
+    minute: "2-digit",
+    second: "2-digit",
+  }).formatToParts(instant);
+  const get = (type: string) => Number(parts.find((p) => p.type === type)?.value);
+  const asUtc = Date.UTC(get("year"), get("month") - 1, get("day"), get("hour"), get("minute"), get("second"));
+  return Math.round((asUtc - Math.floor(instant / 1000) * 1000) / 60_000);
+}
+
+/** The UTC instant (ISO) at which a calendar date (YYYY-MM-DD) begins in a time zone. */
+export function startOfDayIso(date: string, timeZone: string): string {
+  const [y, m, d] = date.split("-").map(Number) as [number, number, number];
+  const guess = Date.UTC(y, m - 1, d);
+  // Two passes settle days on which the offset changes (daylight saving).
+  let instant = guess - offsetMinutes(guess, timeZone) * 60_000;
+  instant = guess - offsetMinutes(instant, timeZone) * 60_000;
+  return new Date(instant).toISOString();
+}
+
+/** YYYY-MM-DD plus n days. */
+export function addDays(date: string, days: number): string {
+  const [y, m, d] = date.split("-").map(Number) as [number, number, number];
+  return new Date(Date.UTC(y, m - 1, d + days)).toISOString().slice(0, 10);
+}
+
+/** Whole days from one calendar date to another (b − a). */
+export function daysBetween(a: string, b: string): number {
+  return Math.round((Date.parse(`${b}T00:00:00Z`) - Date.parse(`${a}T00:00:00Z`)) / 86_400_000);
+}

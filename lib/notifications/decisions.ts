@@ -1,0 +1,11 @@
+import type { BatchOk } from "@/lib/estimate";
+import type { SessionUser } from "@/lib/auth/session-user";
+import { describeDecisions } from "@/db/queries/decisions";
+import { deliverLater } from "@/lib/mail/deliver";
+import { notifyDecisionMade } from "./estimate";
+
+/** After a decision commits: tell the writer, outside the request's critical path. */
+export function afterDecision(user: SessionUser, workOrderId: string, result: BatchOk): Promise<void> {
+  const stillPending = result.lines.filter((l) => l.state === "proposed").length;
+  return deliverLater(() => notifyDecisionMade(workOrderId, user.name, describeDecisions(result.changes), stillPending));
+}
