@@ -162,7 +162,10 @@ describe("a technician's finding reaches the fleet live", () => {
     expect(await firstInShop.innerText()).toContain("Bus 22");
     expect(await firstInShop.locator('[data-severity="out_of_service"]').innerText()).toBe("Out of service");
     await screenshot(page, "fleet-home-approver-phone");
-    await page.getByTestId("fleet-unit-in-shop").filter({ hasText: "Bus 22" }).click();
+    // The card leads to the estimate while it waits on approval; the unit's own page is one step away.
+    const units = (await (await page.request.get("/api/v1/units?limit=200")).json()) as { units: { id: string; unitNumber: string }[] };
+    const bus = units.units.find((u) => u.unitNumber === "Bus 22");
+    await page.goto(`/fleet/units/${bus?.id}`);
     await page.getByRole("heading", { name: "Unit Bus 22" }).waitFor();
     const first = page.getByTestId("finding").first();
     expect(await first.getAttribute("data-severity")).toBe("out_of_service");
