@@ -9,5 +9,8 @@ export function shopNav(role: Role): NavItem[] {
 }
 
 export function fleetNav(_role: Role): NavItem[] {
-  return [{ href: "/fleet", label: "Units" }];
+  return [
+    { href: "/fleet", label: "Units" },
+    { href: "/fleet/occurrences", label: "Occurrence log" },
+  ];
 }

@@ -5,6 +5,7 @@ import { seedEstimates } from "./estimates";
 import type { SeedContext } from "./context";
 import { storeDemoPhotos } from "./demo-photos";
 import { seedFindings } from "./findings";
+import { seedOccurrences } from "./occurrences";
 import { demoPasswordHash, seedShop } from "./shop";
 import { seedUnits } from "./units";
 import { seedWorkOrders } from "./work-orders";
@@ -32,6 +33,7 @@ export async function seedDatabase(
       await seedWorkOrders(ctx);
       await seedFindings(ctx, demoPhotos);
       await seedEstimates(ctx);
+      await seedOccurrences(ctx);
     });
     return { seeded: true as const };
   } finally {

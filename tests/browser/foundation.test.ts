@@ -29,8 +29,9 @@ describe("sign-in and the first screens, in Chromium", () => {
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
     await screenshot(page, "fleet-home-supervisor-phone");
 
-    await page.getByTestId("fleet-unit-in-shop").filter({ hasText: "T-14" }).click();
-    await page.getByRole("heading", { name: "Unit T-14" }).waitFor();
+    // A unit waiting on parts opens its unit page (one waiting on approval opens the estimate).
+    await page.getByTestId("fleet-unit-in-shop").filter({ hasText: "L-3" }).click();
+    await page.getByRole("heading", { name: "Unit L-3" }).waitFor();
     expect(await page.locator("main").innerText()).toContain("Visits");
     await screenshot(page, "fleet-unit-supervisor-phone");
     await context.close();

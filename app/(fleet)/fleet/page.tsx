@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { FleetUnits } from "@/components/fleet/fleet-units";
+import { FleetWatchList } from "@/components/occurrences/fleet-watch-list";
 import { PageHeader } from "@/components/ui/page-header";
 import { getAccountName } from "@/db/queries/settings";
 import { listUnits } from "@/db/queries/units";
@@ -18,6 +19,7 @@ export default async function FleetHome() {
   return (
     <>
       <PageHeader title="Your units" kicker={accountName} />
+      <FleetWatchList user={user} compact />
       <FleetUnits initialUnits={units} initialOrders={orders} />
     </>
   );

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { UnitIntermittentConcerns } from "@/components/occurrences/unit-intermittent-concerns";
 import { Card, CardTitle } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { StatusPill } from "@/components/ui/status-pill";
@@ -43,6 +44,7 @@ export default async function ShopUnitPage({ params }: { params: Promise<{ id: s
               </p>
             </Card>
           ) : null}
+          <UnitIntermittentConcerns unitId={unit.id} />
           <Card>
             <CardTitle>Visits</CardTitle>
             <WorkOrderHistory rows={history} hrefFor={(woId) => `/work-orders/${woId}`} />

@@ -5,6 +5,7 @@ import { DeferredOfferPanel } from "@/components/estimate/deferred-offer";
 import { EstimateEditor } from "@/components/estimate/estimate-editor";
 import { TimeClock } from "@/components/estimate/time-clock";
 import { WorkOrderFindings } from "@/components/findings/work-order-findings";
+import { WorkOrderOccurrences } from "@/components/occurrences/work-order-occurrences";
 import { Card, CardTitle } from "@/components/ui/card";
 import { ConcernList } from "@/components/work-order/concern-list";
 import { StatusMover } from "@/components/work-order/status-mover";
@@ -57,6 +58,7 @@ export default async function ShopWorkOrderPage({ params }: { params: Promise<{ 
             </Card>
           </div>
         </div>
+        <WorkOrderOccurrences workOrderId={view.id} unitId={view.unitId} />
         {canPrice ? (
           <Card>
             <CardTitle>Estimate</CardTitle>

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { LiveVisit, LiveVisitStatus } from "@/components/fleet/live-visit";
+import { FleetWatchList } from "@/components/occurrences/fleet-watch-list";
 import { ButtonLink } from "@/components/ui/button";
 import { Card, CardTitle } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
@@ -37,6 +38,7 @@ export default async function FleetUnitPage({ params }: { params: Promise<{ id: 
       <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
         <div className="flex flex-col gap-4">
           <LiveVisit unitId={unit.id} initial={visit} />
+          <FleetWatchList user={user} unitId={unit.id} compact />
           <Card>
             <CardTitle>Visits</CardTitle>
             <WorkOrderHistory rows={history} hrefFor={(woId) => `/fleet/work-orders/${woId}`} />

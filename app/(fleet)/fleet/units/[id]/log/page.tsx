@@ -1,0 +1,34 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { FleetOccurrenceLog } from "@/components/occurrences/fleet-occurrence-log";
+import { PageHeader } from "@/components/ui/page-header";
+import { listOccurrences } from "@/db/queries/occurrences";
+import { requireUser } from "@/lib/auth/current-user";
+import { HttpError } from "@/lib/http/problem";
+
+export const metadata: Metadata = { title: "Log an occurrence" };
+
+/** Phone-first: a driver or foreman records the fault the moment it happens. */
+export default async function FleetOccurrenceLogPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params;
+  const user = await requireUser();
+  // Scoped to the user's account: another account's unit is simply not found.
+  const log = await listOccurrences(user, id, { limit: 200 }).catch((error: unknown) => {
+    if (error instanceof HttpError && error.status === 404) return null;
+    throw error;
+  });
+  if (!log) notFound();
+  return (
+    <>
+      <PageHeader title={`Unit ${log.unit.unitNumber}`} kicker="Occurrence log">
+        <Link href={`/fleet/units/${id}`} className="flex min-h-touch items-center">
+          Unit page
+        </Link>
+      </PageHeader>
+      <div className="mx-auto max-w-2xl">
+        <FleetOccurrenceLog unitId={id} initial={log} meId={user.id} />
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,21 @@
+import { z } from "zod";
+import { getOccurrence, updateOccurrence } from "@/db/queries/occurrences";
+import { CAN } from "@/lib/auth/policy";
+import { apiRoute } from "@/lib/http/api-route";
+import { notFound } from "@/lib/http/problem";
+import { occurrencePatch } from "@/lib/validation/occurrence";
+
+export const dynamic = "force-dynamic";
+
+const params = z.object({ id: z.string().min(1).max(64), occurrenceId: z.string().min(1).max(64) });
+
+export const GET = apiRoute({ roles: CAN.logOccurrence, params }, async ({ user, params: p }) => {
+  const row = await getOccurrence(user, p.id, p.occurrenceId);
+  if (!row) throw notFound("That entry");
+  return row;
+});
+
+/** Corrects an entry: its author, or shop staff; anyone else in the account gets 403. */
+export const PATCH = apiRoute({ roles: CAN.logOccurrence, params, body: occurrencePatch }, async ({ user, params: p, body }) =>
+  (await updateOccurrence(user, p.id, p.occurrenceId, body)) ?? {},
+);

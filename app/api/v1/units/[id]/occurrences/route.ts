@@ -1,0 +1,24 @@
+import { z } from "zod";
+import { addOccurrence, getOccurrence, listOccurrences } from "@/db/queries/occurrences";
+import { CAN } from "@/lib/auth/policy";
+import { apiRoute, idParams } from "@/lib/http/api-route";
+import { pageQuery } from "@/lib/http/pagination";
+import { deliverLater } from "@/lib/mail/deliver";
+import { notifyOccurrence } from "@/lib/mail/notify-occurrence";
+import { occurrenceInput } from "@/lib/validation/occurrence";
+
+export const dynamic = "force-dynamic";
+
+const listQuery = pageQuery.extend({ concernId: z.string().min(1).max(64).optional() });
+
+/** The unit's occurrence log, newest first, with its intermittent concerns (api-v1.md). */
+export const GET = apiRoute({ roles: CAN.logOccurrence, params: idParams, query: listQuery }, async ({ user, params, query }) =>
+  listOccurrences(user, params.id, query),
+);
+
+/** Logs one occurrence; the writer and the technician get an e-mail after the response. */
+export const POST = apiRoute({ roles: CAN.logOccurrence, params: idParams, body: occurrenceInput }, async ({ user, params, body }) => {
+  const created = await addOccurrence(user, params.id, body);
+  void deliverLater(() => notifyOccurrence(created.id));
+  return Response.json(await getOccurrence(user, params.id, created.id), { status: 201 });
+});

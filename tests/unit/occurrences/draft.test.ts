@@ -1,0 +1,88 @@
+import { describe, expect, it } from "vitest";
+import { draftFieldOf, draftHasContent, draftToBody, emptyDraft, parseTyped, toggleSign } from "@/lib/occurrences/draft";
+import { T9_NO_START } from "@/db/seed/occurrences";
+import { summarizePattern } from "@/lib/occurrences/pattern";
+import { celsiusFromFahrenheit } from "@/lib/occurrences/temperature";
+import { makeOccurrenceInput } from "@/lib/validation/occurrence";
+
+const NOW = Date.parse("2026-01-12T12:30:00Z");
+const utcLocal = (v: string) => Date.parse(`${v}:00Z`);
+
+describe("typed numbers as phones send them (common practice: keypads without a minus key, decimal commas)", () => {
+  it.each([
+    ["12", 12],
+    ["−7", -7],
+    ["-7", -7],
+    ["–4.5", -4.5],
+    ["12,5", 12.5],
+    [" 11.8 ", 11.8],
+    [".5", 0.5],
+    ["", null],
+  ])("%j reads as %s", (text, value) => {
+    expect(parseTyped(text)).toBe(value);
+  });
+
+  it.each(["abc", "1.2.3", "−", "12 V", "1e3"])("%j is not a number", (text) => {
+    expect(parseTyped(text)).toBeNaN();
+  });
+
+  it("the ± button flips the sign of what is typed, even before any digit", () => {
+    expect(toggleSign("")).toBe("−");
+    expect(toggleSign("7")).toBe("−7");
+    expect(toggleSign("−7")).toBe("7");
+    expect(toggleSign("-7")).toBe("7");
+  });
+});
+
+describe("draft → API body", () => {
+  it("sends °F as ambientF (the server converts exactly), times as UTC, and leaves out what was not given", () => {
+    const d = { ...emptyDraft("c1", "F" as const), symptom: "no_start" as const, hoursParked: "13", temperature: "−7", batteryVolts: "11,8", recovered: "no" as const };
+    const r = draftToBody(d, NOW);
+    expect(r).toEqual({ ok: true, body: { occurredAt: "2026-01-12T12:30:00.000Z", symptom: "no_start", hoursParked: 13, ambientF: -7, batteryVolts: 11.8, recovered: false, concernId: "c1" } });
+  });
+
+  it("sends °C as ambientC, and an earlier time as typed in the phone's zone", () => {
+    const d = { ...emptyDraft(null, "C" as const), when: "2026-01-11T06:05", symptom: "stalled" as const, temperature: "-21.5", note: "  cold  " };
+    const r = draftToBody(d, NOW, utcLocal);
+    expect(r).toEqual({ ok: true, body: { occurredAt: "2026-01-11T06:05:00.000Z", symptom: "stalled", ambientC: -21.5, note: "cold" } });
+  });
+
+  it("says which answers cannot be read, and that a symptom is needed", () => {
+    const d = { ...emptyDraft(null, "F" as const), hoursParked: "all night", temperature: "cold", batteryVolts: "12 V" };
+    const r = draftToBody(d, NOW);
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(Object.keys(r.errors).sort()).toEqual(["batteryVolts", "hoursParked", "symptom", "temperature"]);
+  });
+
+  it("the body passes the same schema the server uses; out-of-range values fail it with the API's paths", () => {
+    const schema = makeOccurrenceInput(() => NOW);
+    const ok = draftToBody({ ...emptyDraft(null, "F"), symptom: "no_start", temperature: "−76" }, NOW);
+    expect(ok.ok && schema.safeParse(ok.body).success).toBe(true);
+    const parsed = ok.ok ? schema.parse(ok.body) : null;
+    // NIST SP 811 App. B: −76 °F is exactly −60 °C, the lowest value the API accepts.
+    expect(parsed?.ambientC).toBe(-60);
+    const cold = draftToBody({ ...emptyDraft(null, "F"), symptom: "no_start", temperature: "−77" }, NOW);
+    const result = cold.ok ? schema.safeParse(cold.body) : null;
+    expect(result?.success).toBe(false);
+    expect(result?.error?.issues.map((i) => draftFieldOf(String(i.path[0])))).toEqual(["temperature"]);
+  });
+
+  it("a draft with only 'now' and the unit chosen has nothing worth keeping", () => {
+    expect(draftHasContent(emptyDraft("c", "C"))).toBe(false);
+    expect(draftHasContent({ ...emptyDraft("c", "C"), note: "x" })).toBe(true);
+    expect(draftHasContent({ ...emptyDraft("c", "C"), when: "2026-01-11T06:05" })).toBe(true);
+  });
+});
+
+describe("the demo season reads as the cold-soak pattern it was written to show", () => {
+  it("T-9: 14 of 15 after more than 10 h parked, 14 of 15 below 25 °F (hand-counted from db/seed/occurrences.ts)", () => {
+    const points = T9_NO_START.map((o) => ({
+      occurredAt: new Date(NOW - o.daysAgo * 86_400_000).toISOString(),
+      hoursParked: o.hoursParked,
+      ambientC: o.tempF === null ? null : celsiusFromFahrenheit(o.tempF),
+      batteryVolts: o.volts,
+      recovered: o.recovered,
+    }));
+    expect(summarizePattern(points, { now: NOW }).headline).toBe("14 of 15 after more than 10 h parked, 14 of 15 below 25 °F");
+  });
+});
