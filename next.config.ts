@@ -5,7 +5,7 @@ const nextConfig: NextConfig = {
   // a dev server) live side by side without clobbering each other.
   distDir: process.env.NEXT_DIST_DIR || ".next",
   // libSQL ships a native module: load it from node_modules at run time.
-  serverExternalPackages: ["@libsql/client", "libsql", "sharp", "pdfkit", "bcryptjs"],
+  serverExternalPackages: ["@libsql/client", "libsql", "sharp", "heic-convert", "heic-decode", "libheif-js", "pdfkit", "bcryptjs"],
   poweredByHeader: false,
   typedRoutes: false,
   // unauthorized() and forbidden() render app/unauthorized.tsx and app/forbidden.tsx with 401/403.

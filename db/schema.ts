@@ -275,6 +275,8 @@ export const findingReadings = sqliteTable(
     findingId: text("finding_id").notNull().references(() => findings.id, { onDelete: "cascade" }),
     position: integer("position").notNull().default(0),
     kind: text("kind").notNull(),
+    // Where on the unit it was read ("axle 2 right", "front battery"): a stroke means little without it.
+    location: text("location").notNull().default(""),
     // The typed input as entered (axle position, chamber type, temperature …), JSON.
     input: text("input", { mode: "json" }).notNull(),
     value: real("value").notNull(),

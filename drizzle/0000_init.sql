@@ -170,6 +170,7 @@ CREATE TABLE `finding_readings` (
 	`finding_id` text NOT NULL,
 	`position` integer DEFAULT 0 NOT NULL,
 	`kind` text NOT NULL,
+	`location` text DEFAULT '' NOT NULL,
 	`input` text NOT NULL,
 	`value` real NOT NULL,
 	`unit` text NOT NULL,

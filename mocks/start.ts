@@ -1,6 +1,8 @@
 import { existsSync } from "node:fs";
 import { startFakeSmtp } from "./smtp/server";
 import { startFakeStripe } from "./stripe/server";
+import { startFakeUploadThing } from "./uploadthing/server";
+import { fakeStorageDir } from "./uploadthing/storage-dir";
 
 // Read the same .env files Next.js reads, so "is a real key configured?" has one answer.
 for (const file of [".env.local", ".env"]) if (existsSync(file)) process.loadEnvFile(file);
@@ -28,6 +30,14 @@ async function main() {
       },
     });
     started.push(`card payments: ${payments.url} (test card 4242 4242 4242 4242; webhooks to ${webhookUrl})`);
+  }
+  if (!process.env.UPLOADTHING_TOKEN) {
+    // The app derives the same fake token and address from FAKE_UPLOADTHING_PORT (lib/uploads/config.ts).
+    const uploads = await startFakeUploadThing({
+      port: Number(process.env.FAKE_UPLOADTHING_PORT ?? 12112),
+      storageDir: fakeStorageDir(),
+    });
+    started.push(`uploads: ${uploads.url} (files kept in ${fakeStorageDir()})`);
   }
   console.log(started.length ? `Local fakes running:\n  ${started.join("\n  ")}` : "All services configured; no fakes started.");
 }

@@ -4,6 +4,7 @@ import Link from "next/link";
 import useSWR from "swr";
 import { fetchJson, LIVE_REFRESH_MS } from "@/components/data/fetcher";
 import { useNow } from "@/components/data/use-now";
+import { SeverityMark } from "@/components/findings/severity-mark";
 import { StatusPill } from "@/components/ui/status-pill";
 import type { WorkOrderListItem } from "@/db/queries/work-order-list";
 import { workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
@@ -30,7 +31,9 @@ export function FleetUnits({ initialUnits, initialOrders }: { initialUnits: Unit
   const orders = useSWR<Orders>(FLEET_ORDERS_KEY, fetchJson, { fallbackData: initialOrders, refreshInterval: LIVE_REFRESH_MS });
   const byId = new Map((orders.data?.workOrders ?? []).map((w) => [w.id, w]));
   const all = units.data?.units ?? [];
-  const inShop = all.filter((u) => u.workOrderId && u.status !== "released");
+  // Out of service first: the fleet must see those before anything else.
+  const oos = (u: FleetUnit) => (u.workOrderId ? byId.get(u.workOrderId)?.outOfService === true : false);
+  const inShop = all.filter((u) => u.workOrderId && u.status !== "released").sort((a, b) => Number(oos(b)) - Number(oos(a)));
   const home = all.filter((u) => !(u.workOrderId && u.status !== "released"));
   const now = new Date(useNow());
 
@@ -55,8 +58,9 @@ export function FleetUnits({ initialUnits, initialOrders }: { initialUnits: Unit
                     {wo ? <span className="figures text-sm text-ink-faint">{workOrderLabel(wo.number)}</span> : null}
                   </div>
                   <p className="text-sm text-ink-soft">{u.description}</p>
-                  <div className="mt-2">
+                  <div className="mt-2 flex flex-wrap items-center gap-3">
                     <StatusPill status={u.status} />
+                    {wo?.outOfService ? <SeverityMark severity="out_of_service" /> : null}
                   </div>
                   {wo?.title ? <p className="mt-2 font-semibold">{wo.title}</p> : null}
                   {wo?.lastNote ? <p className="mt-1 text-sm">“{wo.lastNote}”</p> : null}

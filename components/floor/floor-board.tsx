@@ -53,6 +53,7 @@ export function FloorBoard({ initial, userId, isTech }: { initial: ListResponse;
           )}
         </section>
       ) : null}
+      {isTech ? <h2 className="-mb-3 text-xl font-bold">Everything on the Floor</h2> : null}
       {OPEN_STATUSES.map((status) => {
         const group = workOrders.filter((w) => w.status === status);
         // Swimlanes on a desktop (status on the left, units flowing right); stacked on a phone.

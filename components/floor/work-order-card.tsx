@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { SeverityMark } from "@/components/findings/severity-mark";
 import type { WorkOrderListItem } from "@/db/queries/work-order-list";
 import { formatDateTime } from "@/lib/format";
 
@@ -15,6 +16,11 @@ export function WorkOrderCard({ wo, now, href }: { wo: WorkOrderListItem; now: n
         <span className="figures text-sm text-ink-faint">{wo.label}</span>
       </div>
       <p className="text-sm text-ink-soft">{wo.accountName}</p>
+      {wo.outOfService ? (
+        <p className="mt-1">
+          <SeverityMark severity="out_of_service" size="sm" />
+        </p>
+      ) : null}
       <p className="mt-1 line-clamp-2 font-semibold">{wo.title || wo.unitDescription}</p>
       <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-2 text-sm">
         <dt className="text-ink-faint">Tech</dt>

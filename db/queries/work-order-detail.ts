@@ -106,6 +106,7 @@ export async function loadFindings(workOrderId: string) {
         .map((r) => ({
           id: r.id,
           kind: r.kind,
+          location: r.location,
           value: r.value,
           unit: r.unit,
           verdict: r.verdict,

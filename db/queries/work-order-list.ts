@@ -23,6 +23,8 @@ export interface WorkOrderListItem {
   technicianId: string | null;
   technicianName: string | null;
   lastNote: string;
+  /** A posted finding on this visit is Out of service: shown first and marked on every list. */
+  outOfService: boolean;
 }
 
 /** Open work orders the caller may see (the Floor, the fleet's "in the shop" list, GET /api/v1/work-orders). */
@@ -49,6 +51,7 @@ export async function listOpenWorkOrders(
       technicianId: workOrders.assignedTechId,
       technicianName: users.name,
       lastNote: sql<string>`coalesce((select e.note from status_events e where e.work_order_id = ${workOrders.id} order by e.at desc limit 1), '')`,
+      outOfService: sql<number>`exists (select 1 from findings f where f.work_order_id = ${workOrders.id} and f.severity = 'out_of_service')`,
     })
     .from(workOrders)
     .innerJoin(units, eq(units.id, workOrders.unitId))
@@ -66,5 +69,8 @@ export async function listOpenWorkOrders(
     .limit(opts.limit + 1);
 
   const { page, nextCursor } = paginate(rows, opts.limit, (r) => [r.number]);
-  return { workOrders: page.map((r) => ({ ...r, label: workOrderLabel(r.number) })), nextCursor };
+  return {
+    workOrders: page.map((r) => ({ ...r, outOfService: Boolean(r.outOfService), label: workOrderLabel(r.number) })),
+    nextCursor,
+  };
 }

@@ -4,13 +4,18 @@ import { seedAccounts } from "./accounts";
 import { seedEstimates } from "./estimates";
 import { seedInvoices } from "./invoices";
 import type { SeedContext } from "./context";
+import { storeDemoPhotos } from "./demo-photos";
+import { seedFindings } from "./findings";
 import { seedOccurrences } from "./occurrences";
 import { demoPasswordHash, seedShop } from "./shop";
 import { seedUnits } from "./units";
 import { seedWorkOrders } from "./work-orders";
 
 /** Loads the invented demo world (product.md's scenario) into an empty database, in one transaction. */
-export async function seedDatabase(url: string, options: { ifEmpty?: boolean; authToken?: string; now?: Date } = {}) {
+export async function seedDatabase(
+  url: string,
+  options: { ifEmpty?: boolean; authToken?: string; now?: Date; photos?: boolean } = {},
+) {
   const { client, db } = openDatabase(url, options.authToken);
   try {
     const existing = await db.select({ id: shopSettings.id }).from(shopSettings).limit(1);
@@ -19,6 +24,8 @@ export async function seedDatabase(url: string, options: { ifEmpty?: boolean; au
       throw new Error("The database already has data. Use `npm run db:reset` to start over.");
     }
     const passwordHash = await demoPasswordHash();
+    // Stored before the transaction: the upload service is not part of it.
+    const demoPhotos = options.photos === false ? null : await storeDemoPhotos();
     await db.transaction(async (tx) => {
       const ctx: SeedContext = { db: tx, now: options.now ?? new Date(), ids: new Map() };
       await seedShop(ctx, passwordHash);
@@ -27,6 +34,7 @@ export async function seedDatabase(url: string, options: { ifEmpty?: boolean; au
       await seedWorkOrders(ctx);
       // Past visits' billed work first, so the estimates step sets budgets with it counted.
       await seedInvoices(ctx);
+      await seedFindings(ctx, demoPhotos);
       await seedEstimates(ctx);
       await seedOccurrences(ctx);
     });

@@ -7,6 +7,7 @@ import { migrateDatabase } from "@/db/migrate";
 import { seedDatabase } from "@/db/seed";
 import { startFakeSmtp } from "@/mocks/smtp/server";
 import { startFakeStripe } from "@/mocks/stripe/server";
+import { startFakeUploadThing } from "@/mocks/uploadthing/server";
 
 const root = path.join(import.meta.dirname, "..", "..");
 // A separate build directory per checkout or worktree lets test runs sit side by side.
@@ -51,6 +52,8 @@ async function waitForHealth(url: string, server: ChildProcess, timeoutMs = 60_0
  * COTTER_TEST_SKIP_BUILD=1 reuses an earlier test build while iterating.
  */
 export default async function setup(project: TestProject) {
+  // Tests use the local upload fake even on a machine with a real key configured.
+  delete process.env.UPLOADTHING_TOKEN;
   const env = { ...process.env, NEXT_DIST_DIR: distDir, NEXT_TELEMETRY_DISABLED: "1" };
   if (!(process.env.COTTER_TEST_SKIP_BUILD === "1" && existsSync(path.join(root, distDir)))) {
     const build = spawnSync("npx", ["next", "build"], { cwd: root, env, stdio: "inherit" });
@@ -61,10 +64,14 @@ export default async function setup(project: TestProject) {
   rmSync(dir, { recursive: true, force: true });
   mkdirSync(dir, { recursive: true });
   const dbUrl = `file:${path.join(dir, "cotter.db")}`;
+  // The seed stores its drawn photos where this run's upload fake keeps files.
+  const uploadsDir = path.join(dir, "uploads");
+  process.env.FAKE_UPLOADTHING_STORAGE = uploadsDir;
   await migrateDatabase(dbUrl);
   await seedDatabase(dbUrl);
 
   const smtp = await startFakeSmtp();
+  const uploads = await startFakeUploadThing({ port: 0, storageDir: uploadsDir });
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   const webhookSecret = "whsec_browser_tests";
@@ -82,6 +89,8 @@ export default async function setup(project: TestProject) {
       STRIPE_SECRET_KEY: "",
       FAKE_STRIPE_PORT: String(payments.port),
       STRIPE_WEBHOOK_SECRET: webhookSecret,
+      // No UPLOADTHING_TOKEN: the app points the SDK at the fake on this port (lib/uploads/config.ts).
+      FAKE_UPLOADTHING_PORT: new URL(uploads.url).port,
     },
     stdio: ["ignore", "inherit", "inherit"],
   });
@@ -93,7 +102,6 @@ export default async function setup(project: TestProject) {
 
   return async () => {
     server.kill("SIGTERM");
-    await payments.close();
-    await smtp.close();
+    await Promise.all([smtp.close(), uploads.close(), payments.close()]);
   };
 }

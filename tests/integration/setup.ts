@@ -19,7 +19,8 @@ process.env.NEXTAUTH_URL = "http://localhost:3000";
 resetEnvCache();
 
 await migrateDatabase(url);
-await seedDatabase(url);
+// Demo photos need the upload service and take seconds to draw; tests that need photos upload their own.
+await seedDatabase(url, { photos: false });
 
 afterAll(() => {
   closeDb();

@@ -4,10 +4,12 @@ import { DecisionLog } from "@/components/estimate/decision-log";
 import { DeferredOfferPanel } from "@/components/estimate/deferred-offer";
 import { EstimateEditor } from "@/components/estimate/estimate-editor";
 import { TimeClock } from "@/components/estimate/time-clock";
+import { WorkOrderFindings } from "@/components/findings/work-order-findings";
 import { WorkOrderInvoice } from "@/components/invoices/work-order-invoice";
 import { WorkOrderOccurrences } from "@/components/occurrences/work-order-occurrences";
 import { Card, CardTitle } from "@/components/ui/card";
 import { ConcernList } from "@/components/work-order/concern-list";
+import { StatusMover } from "@/components/work-order/status-mover";
 import { Timeline } from "@/components/work-order/timeline";
 import { WorkOrderHeader } from "@/components/work-order/wo-header";
 import { loadShopWorkOrderPage } from "@/db/queries/shop-work-order-page";
@@ -29,11 +31,24 @@ export default async function ShopWorkOrderPage({ params }: { params: Promise<{ 
       <WorkOrderHeader wo={view} unitHref={`/units/${view.unitId}`} />
       <div className="flex flex-col gap-4">
         <div className="grid gap-4 lg:grid-cols-2">
-          <Card>
-            <CardTitle>Concerns</CardTitle>
-            <ConcernList concerns={view.concerns} />
-          </Card>
           <div className="flex min-w-0 flex-col gap-4">
+            <WorkOrderFindings
+              workOrderId={view.id}
+              findings={view.findings}
+              canAdd={view.status !== "released" && hasRole(user, CAN.postFindings)}
+            />
+            <Card>
+              <CardTitle>Concerns</CardTitle>
+              <ConcernList concerns={view.concerns} />
+            </Card>
+          </div>
+          <div className="flex min-w-0 flex-col gap-4">
+            {hasRole(user, CAN.moveStatus) ? (
+              <Card>
+                <CardTitle>Move this unit</CardTitle>
+                <StatusMover workOrderId={view.id} status={view.status} unitNumber={view.unitNumber} />
+              </Card>
+            ) : null}
             <Card>
               <CardTitle>Time and progress</CardTitle>
               <TimeClock workOrderId={view.id} lines={page.clockLines} />

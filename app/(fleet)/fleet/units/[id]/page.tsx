@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { LiveUnitStatus } from "@/components/fleet/live-unit-status";
+import { LiveVisit, LiveVisitStatus } from "@/components/fleet/live-visit";
 import { FleetWatchList } from "@/components/occurrences/fleet-watch-list";
 import { ButtonLink } from "@/components/ui/button";
 import { Card, CardTitle } from "@/components/ui/card";
@@ -9,6 +9,7 @@ import { DeferredWork } from "@/components/units/deferred-work";
 import { MeterList } from "@/components/units/meter-list";
 import { UnitFacts } from "@/components/units/unit-facts";
 import { WorkOrderHistory } from "@/components/units/work-order-history";
+import { currentVisit } from "@/db/queries/finding-reads";
 import { getUnitDetail } from "@/db/queries/units";
 import { requireUser } from "@/lib/auth/current-user";
 import { calendarDate } from "@/lib/format";
@@ -19,16 +20,13 @@ export default async function FleetUnitPage({ params }: { params: Promise<{ id: 
   const { id } = await params;
   const user = await requireUser();
   // Scoped to the user's account: another account's unit is simply not found.
-  const detail = await getUnitDetail(user, id);
-  if (!detail) notFound();
+  const [detail, visit] = await Promise.all([getUnitDetail(user, id), currentVisit(user, id)]);
+  if (!detail || !visit) notFound();
   const { unit, openWorkOrder, readings, history, deferred } = detail;
   return (
     <>
       <PageHeader title={`Unit ${unit.unitNumber}`} kicker={unit.description}>
-        <LiveUnitStatus
-          unitId={unit.id}
-          initial={{ status: openWorkOrder?.status ?? null, workOrderId: openWorkOrder?.id ?? null }}
-        />
+        <LiveVisitStatus unitId={unit.id} initial={visit} />
       </PageHeader>
       {openWorkOrder ? (
         <p className="mb-4">
@@ -39,6 +37,7 @@ export default async function FleetUnitPage({ params }: { params: Promise<{ id: 
       ) : null}
       <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
         <div className="flex flex-col gap-4">
+          <LiveVisit unitId={unit.id} initial={visit} />
           <FleetWatchList user={user} unitId={unit.id} compact />
           <Card>
             <CardTitle>Visits</CardTitle>

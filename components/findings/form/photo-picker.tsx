@@ -1,0 +1,164 @@
+"use client";
+
+import { useRef, useState } from "react";
+import { buttonClass } from "@/components/ui/button";
+import type { PhotoUploadResult } from "@/lib/uploads/store-photo";
+import { ACCEPTED_WORDS, PHOTO_ACCEPT, PHOTOS_PER_FINDING, refusalFor, sniffPhotoKind } from "@/lib/uploads/photo-rules";
+import { uploadFiles } from "./upload-client";
+
+export interface UploadedPhoto {
+  photoId: string;
+  name: string;
+  url: string;
+  thumbUrl: string;
+}
+
+interface InFlight {
+  key: string;
+  name: string;
+  percent: number;
+}
+
+/** Reads the first bytes in the browser, so a renamed text file is refused before it is sent. */
+async function contentRefusal(file: File): Promise<string | null> {
+  const head = new Uint8Array(await file.slice(0, 64).arrayBuffer());
+  return sniffPhotoKind(head) ? null : `${file.name} is not a ${ACCEPTED_WORDS} photo, whatever its name says.`;
+}
+
+/**
+ * Camera or library, several photos at once, each with its own progress bar.
+ * Files are checked here first (kind, 8 MB, 8 per finding); the server checks
+ * again and has the last word.
+ */
+export function PhotoPicker({ workOrderId, photos, onChange }: { workOrderId: string; photos: UploadedPhoto[]; onChange: (next: UploadedPhoto[]) => void }) {
+  const [inFlight, setInFlight] = useState<InFlight[]>([]);
+  const [problems, setProblems] = useState<string[]>([]);
+  const latest = useRef(photos);
+  latest.current = photos;
+  const room = PHOTOS_PER_FINDING - photos.length - inFlight.length;
+
+  async function take(list: FileList | null) {
+    const files = Array.from(list ?? []);
+    if (!files.length) return;
+    const reasons: string[] = [];
+    const good: File[] = [];
+    for (const file of files) {
+      const reason = refusalFor(file) ?? (await contentRefusal(file));
+      if (reason) reasons.push(reason);
+      else if (good.length < room) good.push(file);
+      else reasons.push(`${file.name} was left out: a finding takes at most ${PHOTOS_PER_FINDING} photos.`);
+    }
+    setProblems(reasons);
+    if (!good.length) return;
+    const batch = good.map((f, i) => ({ key: `${Date.now()}-${i}-${f.name}`, name: f.name, percent: 0 }));
+    setInFlight((now) => [...now, ...batch]);
+    const keyOf = new Map(good.map((f, i) => [f, batch[i]?.key ?? ""]));
+    try {
+      const results = await uploadFiles("findingPhotos", {
+        files: good,
+        input: { workOrderId, attached: photos.length + inFlight.length },
+        onUploadProgress: ({ file, progress }) =>
+          setInFlight((now) => now.map((u) => (u.key === keyOf.get(file) ? { ...u, percent: Math.round(progress) } : u))),
+      });
+      const added: UploadedPhoto[] = [];
+      const refused: string[] = [];
+      for (const r of results) {
+        const data = r.serverData as PhotoUploadResult | null;
+        if (data?.ok) added.push({ photoId: data.photoId, name: data.name, url: data.url, thumbUrl: data.thumbUrl });
+        else refused.push(data?.error ?? `${r.name} could not be saved. Try again.`);
+      }
+      onChange([...latest.current, ...added]);
+      if (refused.length) setProblems((p) => [...p, ...refused]);
+    } catch (error) {
+      setProblems((p) => [...p, error instanceof Error ? error.message : "The upload failed. Try again."]);
+    } finally {
+      setInFlight((now) => now.filter((u) => !batch.some((b) => b.key === u.key)));
+    }
+  }
+
+  return (
+    <div className="flex flex-col gap-3" data-testid="photo-picker">
+      <div className="grid grid-cols-2 gap-2">
+        <label className={buttonClass("primary", `min-h-16 text-lg ${room <= 0 ? "pointer-events-none opacity-50" : "cursor-pointer"}`)}>
+          <CameraIcon /> Take photo
+          <input
+            type="file"
+            accept={PHOTO_ACCEPT}
+            capture="environment"
+            className="sr-only"
+            disabled={room <= 0}
+            onChange={(e) => {
+              void take(e.currentTarget.files);
+              e.currentTarget.value = "";
+            }}
+          />
+        </label>
+        <label className={buttonClass("secondary", `min-h-16 text-lg ${room <= 0 ? "pointer-events-none opacity-50" : "cursor-pointer"}`)}>
+          Choose photos
+          <input
+            type="file"
+            accept={PHOTO_ACCEPT}
+            multiple
+            className="sr-only"
+            disabled={room <= 0}
+            data-testid="photo-input"
+            onChange={(e) => {
+              void take(e.currentTarget.files);
+              e.currentTarget.value = "";
+            }}
+          />
+        </label>
+      </div>
+      <p className="text-sm text-ink-faint">
+        {ACCEPTED_WORDS}, up to 8 MB each, {PHOTOS_PER_FINDING} per finding. Location data is removed before the customer sees them.
+      </p>
+      {inFlight.length ? (
+        <ul className="flex flex-col gap-2" aria-live="polite">
+          {inFlight.map((u) => (
+            <li key={u.key} className="text-sm">
+              <div className="flex justify-between gap-2">
+                <span className="truncate">{u.name}</span>
+                <span className="figures">{u.percent < 100 ? `${u.percent} %` : "Cleaning…"}</span>
+              </div>
+              <progress className="h-3 w-full accent-rust" max={100} value={u.percent} aria-label={`Uploading ${u.name}`} />
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      {problems.length ? (
+        <ul role="alert" className="rounded-card border-2 border-rust bg-rust-wash px-3 py-2 text-sm font-semibold text-rust-deep" data-testid="photo-problems">
+          {problems.map((p) => (
+            <li key={p}>{p}</li>
+          ))}
+        </ul>
+      ) : null}
+      {photos.length ? (
+        <ul className="grid grid-cols-3 gap-2 sm:grid-cols-4" data-testid="uploaded-photos">
+          {photos.map((p) => (
+            <li key={p.photoId} className="relative">
+              {/* eslint-disable-next-line @next/next/no-img-element */}
+              <img src={p.thumbUrl} alt={p.name} className="aspect-square w-full rounded-card border border-rule object-cover" />
+              <button
+                type="button"
+                onClick={() => onChange(photos.filter((x) => x.photoId !== p.photoId))}
+                className="absolute top-1 right-1 min-h-touch min-w-touch rounded-full bg-ink/80 text-lg font-bold text-paper"
+                aria-label={`Leave out ${p.name}`}
+              >
+                ×
+              </button>
+            </li>
+          ))}
+        </ul>
+      ) : null}
+    </div>
+  );
+}
+
+function CameraIcon() {
+  return (
+    <svg width="24" height="24" viewBox="0 0 24 24" aria-hidden>
+      <path d="M4 7h3l2-2.5h6L17 7h3a1 1 0 0 1 1 1v10a1 1 0 0 1-1 1H4a1 1 0 0 1-1-1V8a1 1 0 0 1 1-1z" fill="none" stroke="currentColor" strokeWidth="2" />
+      <circle cx="12" cy="12.5" r="3.5" fill="none" stroke="currentColor" strokeWidth="2" />
+    </svg>
+  );
+}

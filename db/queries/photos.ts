@@ -1,0 +1,63 @@
+import { and, eq, isNotNull, or } from "drizzle-orm";
+import { getDb, writeTx } from "@/db/client";
+import { photos, units, workOrders } from "@/db/schema";
+import { isStaff } from "@/lib/auth/policy";
+import type { SessionUser } from "@/lib/auth/session-user";
+import { scopedTo } from "./scope";
+
+/** The work order a photo is being uploaded to, scoped; null when it does not exist for this user. */
+export async function workOrderForUpload(user: SessionUser, workOrderId: string) {
+  const [row] = await getDb()
+    .select({ id: workOrders.id, accountId: workOrders.accountId, unitId: workOrders.unitId, status: workOrders.status })
+    .from(workOrders)
+    .innerJoin(units, eq(units.id, workOrders.unitId))
+    .where(and(eq(workOrders.id, workOrderId), scopedTo(workOrders.accountId, user)))
+    .limit(1);
+  return row ?? null;
+}
+
+export interface NewPhoto {
+  accountId: string;
+  unitId: string;
+  workOrderId: string;
+  uploadedBy: string;
+  fileKey: string;
+  fileUrl: string;
+  thumbKey: string;
+  thumbUrl: string;
+  name: string;
+  sizeBytes: number;
+  width: number;
+  height: number;
+}
+
+export async function insertPhoto(photo: NewPhoto): Promise<string> {
+  return writeTx(async (tx) => {
+    const [row] = await tx
+      .insert(photos)
+      .values({ ...photo, mime: "image/jpeg" })
+      .returning({ id: photos.id });
+    if (!row) throw new Error("photo insert returned nothing");
+    return row.id;
+  });
+}
+
+/**
+ * A photo's stored keys, if this user may see it: shop staff see every photo;
+ * fleet people see only their own account's photos that are on a posted
+ * finding or their own occurrence log, never a technician's unposted upload.
+ */
+export async function findPhotoFile(user: SessionUser, photoId: string) {
+  const [row] = await getDb()
+    .select({ id: photos.id, fileKey: photos.fileKey, thumbKey: photos.thumbKey, mime: photos.mime, name: photos.name })
+    .from(photos)
+    .where(
+      and(
+        eq(photos.id, photoId),
+        scopedTo(photos.accountId, user),
+        isStaff(user) ? undefined : or(isNotNull(photos.findingId), isNotNull(photos.occurrenceId)),
+      ),
+    )
+    .limit(1);
+  return row ?? null;
+}

@@ -1,0 +1,29 @@
+import { UploadThingError } from "uploadthing/server";
+import { workOrderForUpload } from "@/db/queries/photos";
+import { CAN, hasRole } from "@/lib/auth/policy";
+import { userFromRequest } from "@/lib/auth/resolve-user";
+import { refusalsFor, type FileFacts } from "./photo-rules";
+import type { PhotoUploadMeta } from "./store-photo";
+
+/**
+ * The upload route's middleware: the same checks as every other write (who,
+ * which role, which work order in their scope), plus the photo rules, before
+ * the upload service is asked to take a single byte.
+ */
+export async function authorisePhotoUpload(
+  request: Request,
+  input: { workOrderId: string; attached: number },
+  files: readonly FileFacts[],
+): Promise<PhotoUploadMeta> {
+  const user = await userFromRequest(request);
+  if (!user) throw new UploadThingError({ code: "FORBIDDEN", message: "Your session has ended. Sign in again to add photos." });
+  if (!hasRole(user, CAN.postFindings)) throw new UploadThingError({ code: "FORBIDDEN", message: "Your role may not add photos to findings." });
+  const wo = await workOrderForUpload(user, input.workOrderId);
+  if (!wo) throw new UploadThingError({ code: "NOT_FOUND", message: "That work order was not found." });
+  if (wo.status === "released") {
+    throw new UploadThingError({ code: "BAD_REQUEST", message: "This visit is closed; photos can no longer be added." });
+  }
+  const refusals = refusalsFor(files, input.attached);
+  if (refusals.length) throw new UploadThingError({ code: "BAD_REQUEST", message: refusals.join(" ") });
+  return { userId: user.id, accountId: wo.accountId, unitId: wo.unitId, workOrderId: wo.id };
+}
