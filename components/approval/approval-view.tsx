@@ -4,6 +4,9 @@ import { useState } from "react";
 import useSWR from "swr";
 import { ApiError, fetchJson, LIVE_REFRESH_MS } from "@/components/data/fetcher";
 import { DecisionLog } from "@/components/estimate/decision-log";
+import { FindingCard } from "@/components/findings/finding-card";
+import { FindingList } from "@/components/findings/finding-list";
+import { PhotoStrip } from "@/components/findings/photo-strip";
 import { TotalsBar } from "@/components/estimate/totals-bar";
 import { Card, CardTitle } from "@/components/ui/card";
 import { Timeline } from "@/components/work-order/timeline";
@@ -11,6 +14,7 @@ import { Button } from "@/components/ui/button";
 import type { WorkOrderView } from "@/db/queries/work-order-view";
 import type { Decision } from "@/lib/domain";
 import { formatCents } from "@/lib/money";
+import { READING_CAUTION } from "@/lib/specs";
 import { ApprovalLine } from "./approval-line";
 import { LimitsPanel } from "./limits-panel";
 
@@ -27,12 +31,10 @@ export function ApprovalView({
   initial,
   canDecide,
   taxExempt,
-  findingsFor,
 }: {
   initial: WorkOrderView;
   canDecide: boolean;
   taxExempt: boolean;
-  findingsFor?: Record<string, React.ReactNode>;
 }) {
   const key = `/api/v1/work-orders/${initial.id}`;
   const { data, mutate } = useSWR<WorkOrderView>(key, fetchJson, { fallbackData: initial, refreshInterval: LIVE_REFRESH_MS });
@@ -42,6 +44,10 @@ export function ApprovalView({
   const [banner, setBanner] = useState<{ kind: "ok" | "refused"; text: string } | null>(null);
 
   const pending = view.lines.filter((l) => l.state === "proposed");
+  // Out of service comes before anything else; other findings sit with their concern.
+  const outOfService = view.findings.filter((f) => f.severity === "out_of_service");
+  const otherFindings = view.findings.filter((f) => f.severity !== "out_of_service");
+  const findingById = new Map(view.findings.map((f) => [f.id, f]));
   const groups = [
     ...view.concerns.map((c, i) => ({ id: c.id, title: `${i + 1}. ${c.complaint}`, cause: c.cause })),
     { id: "", title: "Other work", cause: "" },
@@ -84,6 +90,19 @@ export function ApprovalView({
 
   return (
     <div className="flex flex-col gap-4">
+      {outOfService.length ? (
+        <section aria-labelledby="oos-heading" className="flex flex-col gap-2">
+          <h2 id="oos-heading" className="text-lg font-bold">
+            Out of service
+          </h2>
+          <FindingList findings={outOfService} />
+        </section>
+      ) : null}
+      {!outOfService.some((f) => f.readings.length) && otherFindings.some((f) => f.readings.length) ? (
+        <p role="note" className="border-l-4 border-ink pl-3 text-sm text-ink-soft">
+          {READING_CAUTION}
+        </p>
+      ) : null}
       <LimitsPanel limits={view.limits} />
       {banner ? (
         <p
@@ -107,11 +126,19 @@ export function ApprovalView({
       {!canDecide ? <p className="text-sm text-ink-soft">Only your account&apos;s approvers can decide on these lines.</p> : null}
       {groups.map((g) => {
         const lines = view.lines.filter((l) => (l.concernId ?? "") === g.id);
-        if (!lines.length) return null;
+        const found = otherFindings.filter((f) => (f.concernId ?? "") === g.id);
+        if (!lines.length && !found.length) return null;
         return (
           <section key={g.id || "other"} aria-label={g.title}>
             <h2 className="text-lg font-bold">{g.title}</h2>
             {g.cause ? <p className="mb-1 text-sm text-ink-soft">What the technician found: {g.cause}</p> : null}
+            {found.length ? (
+              <div className="mb-2 flex flex-col gap-2">
+                {found.map((f) => (
+                  <FindingCard key={f.id} finding={f} />
+                ))}
+              </div>
+            ) : null}
             <ul className="flex flex-col gap-2">
               {lines.map((line) => (
                 <ApprovalLine
@@ -122,7 +149,12 @@ export function ApprovalView({
                   refusal={refusals[line.id] ?? null}
                   onDecide={(decision, note) => void decideOne(line.id, line.version, decision, note)}
                 >
-                  {line.findingId && findingsFor?.[line.findingId] ? findingsFor[line.findingId] : null}
+                  {line.findingId && findingById.get(line.findingId) ? (
+                    <div className="mt-2 border-t border-rule pt-2 text-sm">
+                      <p className="text-ink-soft">From the finding “{findingById.get(line.findingId)!.title}”</p>
+                      <PhotoStrip photos={findingById.get(line.findingId)!.photos} title={findingById.get(line.findingId)!.title} />
+                    </div>
+                  ) : null}
                 </ApprovalLine>
               ))}
             </ul>
