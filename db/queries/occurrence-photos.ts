@@ -1,4 +1,4 @@
-import { and, asc, eq, inArray, isNull, ne } from "drizzle-orm";
+import { and, asc, eq, inArray, isNotNull, isNull, ne } from "drizzle-orm";
 import { getDb, type Reader, type Tx } from "@/db/client";
 import { photos } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -8,13 +8,7 @@ export interface OccurrencePhotoRef {
   id: string;
 }
 
-const notYours = () =>
-  invalidInput([
-    {
-      path: "photoId",
-      message: "That photo cannot go on this entry: it is not a new photo you added for this unit. Take or choose it again.",
-    },
-  ]);
+const photoProblem = (message: string) => invalidInput([{ path: "photoId", message }]);
 
 /**
  * Puts the caller's own new upload on an entry, inside the entry's write. Only
@@ -49,7 +43,18 @@ export async function attachOccurrencePhoto(
       ),
     )
     .returning({ id: photos.id });
-  if (!attached.length) throw notYours();
+  if (attached.length) return;
+  // Most often a retry after a lost answer: the first send went through with this very photo.
+  const [sent] = await tx
+    .select({ id: photos.id })
+    .from(photos)
+    .where(and(eq(photos.id, photoId), eq(photos.uploadedBy, user.id), isNotNull(photos.occurrenceId)))
+    .limit(1);
+  throw photoProblem(
+    sent
+      ? "That photo is already on an entry you logged, so this one may have gone through already: check the log. To send it anyway, remove the photo."
+      : "That photo cannot go on this entry: it is not a new photo you added for this unit. Take or choose it again.",
+  );
 }
 
 /** Takes every photo off an entry but `keep`; they go back to being their uploader's unattached uploads. */

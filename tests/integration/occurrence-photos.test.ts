@@ -236,6 +236,9 @@ describe("POST /api/v1/units/:id/occurrences with photoId", () => {
       expect(await entriesOn(t9), what).toBe(before);
     }
     expect((await photoRow(supervisors))?.occurrenceId).toBeNull();
+    // A retry after a lost answer is told the first send already carried this photo.
+    const retry = await postAs(FOREMAN, t9, { photoId: used });
+    expect(retry.body.errors?.[0]?.message).toMatch(/already on an entry you logged/);
     const wrongType = await postAs(FOREMAN, t9, { photoId: 42 });
     expect(wrongType.status).toBe(400);
     expect(wrongType.body.errors?.map((e) => e.path)).toEqual(["photoId"]);
