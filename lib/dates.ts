@@ -26,6 +26,20 @@ export function startOfDayIso(date: string, timeZone: string): string {
   return new Date(instant).toISOString();
 }
 
+/** Noon of a calendar date in a time zone, as an ISO instant: a time that stays on that day anywhere. */
+export function localMiddayIso(date: string, timeZone: string): string {
+  const [y, m, d] = date.split("-").map(Number) as [number, number, number];
+  const noonUtc = Date.UTC(y, m - 1, d, 12);
+  return new Date(noonUtc - offsetMinutes(noonUtc, timeZone) * 60_000).toISOString();
+}
+
+const DATE = /^\d{4}-\d{2}-\d{2}$/;
+
+/** A real calendar date written YYYY-MM-DD (2026-02-30 is not). */
+export function isCalendarDate(text: string): boolean {
+  return DATE.test(text) && !Number.isNaN(Date.parse(`${text}T00:00:00Z`)) && new Date(`${text}T00:00:00Z`).toISOString().startsWith(text);
+}
+
 /** YYYY-MM-DD plus n days. */
 export function addDays(date: string, days: number): string {
   const [y, m, d] = date.split("-").map(Number) as [number, number, number];

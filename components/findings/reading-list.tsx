@@ -53,7 +53,10 @@ export function ReadingList({ readings }: { readings: readonly ReadingView[] }) 
           </p>
           <p className="text-xs text-ink-faint">
             Source: {r.source}
-            {r.sourceKind in SOURCE_KIND ? ` (${SOURCE_KIND[r.sourceKind as SourceKind]})` : ""}
+            {/* Some sources already name their kind; say it once. */}
+            {r.sourceKind in SOURCE_KIND && !r.source.includes(`(${SOURCE_KIND[r.sourceKind as SourceKind]})`)
+              ? ` (${SOURCE_KIND[r.sourceKind as SourceKind]})`
+              : ""}
           </p>
         </li>
       ))}

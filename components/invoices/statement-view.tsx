@@ -4,7 +4,7 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { Money } from "@/components/ui/money";
 import type { Statement } from "@/db/queries/statement";
 import { formatDate } from "@/lib/format";
-import { addDays } from "@/lib/invoices/calendar";
+import { addDays } from "@/lib/dates";
 import { PAYMENT_METHOD_LABELS } from "@/lib/invoices/format";
 import { AGEING_LABELS } from "@/lib/receivables/ageing";
 import { AgeingSummary } from "./ageing-summary";

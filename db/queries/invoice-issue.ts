@@ -18,7 +18,6 @@ import {
 } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { invoiceLabel, workOrderLabel } from "@/lib/domain";
-import type { AccountSettings, ShopSettings } from "@/lib/estimate";
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
 import { conflict, notFound } from "@/lib/http/problem";
@@ -27,6 +26,7 @@ import { dueDateOf } from "@/lib/invoices/balance";
 import { buildInvoice, type BillableLine } from "@/lib/invoices/build";
 import type { BillTo, ShopSnapshot, UnitSnapshot } from "@/lib/invoices/snapshot";
 import { recordAudit } from "./audit";
+import { toAccountSettings, toShopSettings } from "./estimate-context";
 import { scopedTo } from "./scope";
 
 export function toBillable(row: EstimateLine): BillableLine {
@@ -45,27 +45,6 @@ export function toBillable(row: EstimateLine): BillableLine {
   };
 }
 
-export function accountPricing(a: Account): AccountSettings {
-  return {
-    taxExempt: a.taxExempt,
-    taxRateMilliPct: a.taxRateMilliPct,
-    shopSuppliesExempt: a.shopSuppliesExempt,
-    standingAuthorisationCents: a.standingAuthorisationCents,
-    repairBudgetCents: a.repairBudgetCents,
-    fiscalYearStartMonth: a.fiscalYearStartMonth,
-    overrunPercentMilli: a.overrunPercentMilli,
-    overrunCapCents: a.overrunCapCents,
-    overrunFloorCents: a.overrunFloorCents,
-  };
-}
-
-export function shopPricing(s: ShopRow): ShopSettings {
-  return {
-    shopSuppliesRateMilliPct: s.shopSuppliesRateMilliPct,
-    shopSuppliesCapCents: s.shopSuppliesCapCents,
-    shopSuppliesTaxable: s.shopSuppliesTaxable,
-  };
-}
 
 export interface InvoiceSources {
   wo: WorkOrder;
@@ -143,7 +122,7 @@ export async function createInvoiceInTx(
   if (account.poRequired && !opts.poNumber) {
     throw conflict("po_required", `${account.name} requires a PO number on every invoice. Enter the PO number to issue it.`);
   }
-  const draft = buildInvoice(src.lines.map(toBillable), shopPricing(src.shop), accountPricing(account));
+  const draft = buildInvoice(src.lines.map(toBillable), toShopSettings(src.shop), toAccountSettings(account));
   if (draft.lines.length === 0) {
     throw conflict("nothing_to_invoice", `${workOrderLabel(wo.number)} has no completed lines to invoice yet.`);
   }

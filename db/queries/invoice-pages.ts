@@ -4,7 +4,8 @@ import { accounts, estimateLines, invoices, shopSettings, units, workOrders } fr
 import type { SessionUser } from "@/lib/auth/session-user";
 import { workOrderLabel } from "@/lib/domain";
 import { buildInvoice } from "@/lib/invoices/build";
-import { accountPricing, shopPricing, toBillable } from "./invoice-issue";
+import { toAccountSettings, toShopSettings } from "./estimate-context";
+import { toBillable } from "./invoice-issue";
 import { invoicesOfWorkOrder } from "./invoices";
 import { scopedTo } from "./scope";
 
@@ -30,7 +31,7 @@ export async function invoiceSection(user: SessionUser, workOrderId: string) {
     invoicesOfWorkOrder(user, workOrderId),
   ]);
   if (!shop) throw new Error("shop settings missing");
-  const draft = buildInvoice(lines.map(toBillable), shopPricing(shop), accountPricing(row.account));
+  const draft = buildInvoice(lines.map(toBillable), toShopSettings(shop), toAccountSettings(row.account));
   const byId = new Map(lines.map((l) => [l.id, l]));
   return {
     workOrderId,

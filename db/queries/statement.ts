@@ -7,7 +7,7 @@ import { invoiceLabel, workOrderLabel } from "@/lib/domain";
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
 import { balanceOf, paymentStateOf } from "@/lib/invoices/balance";
-import { addDays } from "@/lib/invoices/calendar";
+import { addDays } from "@/lib/dates";
 import type { CsvInvoice, CsvPayment } from "@/lib/invoices/csv";
 import { addAgeing, ageBalances, emptyAgeing, type Ageing } from "@/lib/receivables/ageing";
 import { openInvoices, paymentsOfAccount } from "./invoices";

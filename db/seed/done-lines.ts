@@ -38,6 +38,17 @@ export const WORK_TEMPLATES: Record<string, LineSeed[]> = {
     { kind: "part", description: "Automatic slack adjuster, 5.5 in arm", partNumber: "SA-55", quantityMilli: 2_000, unitPriceCents: 7_425, coreChargeCents: 1_000 },
     { kind: "labor", description: "Measure and record pushrod stroke at every wheel end; road test", quantityMilli: 600, unitPriceCents: SHOP_RATE },
   ],
+  // A big mid-year job: most of the school district's repair budget this fiscal year.
+  "Transmission replacement and rear axle reseal": [
+    { kind: "labor", description: "Remove and replace automatic transmission; flush cooler lines", quantityMilli: 18_000, unitPriceCents: SHOP_RATE },
+    { kind: "part", description: "Remanufactured automatic transmission, 5-speed", partNumber: "AT-5R-RM", quantityMilli: 1_000, unitPriceCents: 980_000, coreChargeCents: 150_000 },
+    { kind: "part", description: "Transmission fluid, synthetic (gal)", quantityMilli: 12_000, unitPriceCents: 3_890 },
+    { kind: "part", description: "Transmission cooler, heavy duty", partNumber: "TC-880", quantityMilli: 1_000, unitPriceCents: 112_450 },
+    { kind: "labor", description: "Reseal rear axle: hub seals both sides, pinion seal", quantityMilli: 6_500, unitPriceCents: SHOP_RATE },
+    { kind: "part", description: "Wheel seal kit, drive axle", partNumber: "WS-22D", quantityMilli: 2_000, unitPriceCents: 8_740 },
+    { kind: "part", description: "Pinion seal", partNumber: "PS-180", quantityMilli: 1_000, unitPriceCents: 4_690 },
+    { kind: "sublet", description: "Driveshaft balance and U-joints (driveline shop)", quantityMilli: 1_000, unitPriceCents: 64_500 },
+  ],
   "Hydraulic hose replacement": [
     { kind: "labor", description: "Replace leaking hydraulic hoses and bleed the circuit", quantityMilli: 1_800, unitPriceCents: SHOP_RATE },
     { kind: "part", description: "Hydraulic hose assembly, 1/2 in × 48 in, crimped ends", partNumber: "HH-0848", quantityMilli: 2_000, unitPriceCents: 6_480 },

@@ -171,9 +171,9 @@ async function insertLines(ctx: SeedContext, woKey: string, lines: LineSeed[]): 
 }
 
 /**
- * The school district is close to its repair budget: $1,100 left this fiscal
- * year (July–June), so the pending brake lines on Bus 22 show the budget
- * refusal on first start whatever else the demo approved.
+ * The school district is close to its repair budget: a round budget with
+ * $1,100–$1,600 left this fiscal year (July–June), so the pending brake lines
+ * on Bus 22 ($2,257.95 together) show the budget refusal on first start.
  */
 async function tightenSchoolBudget(ctx: SeedContext): Promise<void> {
   const accountId = id(ctx, "account:schools");
@@ -189,5 +189,6 @@ async function tightenSchoolBudget(ctx: SeedContext): Promise<void> {
         gte(estimateLines.approvedAt, `${year}-07-01`),
       ),
     );
-  await ctx.db.update(accounts).set({ repairBudgetCents: Number(row?.used ?? 0) + 110_000 }).where(eqSql(accounts.id, accountId));
+  const budget = Math.ceil((Number(row?.used ?? 0) + 110_000) / 50_000) * 50_000;
+  await ctx.db.update(accounts).set({ repairBudgetCents: budget }).where(eqSql(accounts.id, accountId));
 }

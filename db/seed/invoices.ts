@@ -65,6 +65,7 @@ const PLANS: InvoicePlan[] = [
     { daysAgo: 25, method: "cheque", share: 500, reference: "55120" },
   ] },
   { wo: "W-1019", account: "schools", issuedDaysAgo: 64 },
+  { wo: "W-1028", account: "schools", issuedDaysAgo: 95, payments: [{ daysAgo: 62, method: "transfer", share: "rest", reference: "EFT 3204" }] },
   { wo: "W-1013", account: "schools", issuedDaysAgo: 108, payments: [{ daysAgo: 60, method: "transfer", share: 300, reference: "EFT 3318" }] },
   { wo: "W-1016", account: "schools", issuedDaysAgo: 214 },
   { wo: "W-1018", account: "schools", issuedDaysAgo: 267, payments: [{ daysAgo: 240, method: "transfer", share: "rest", reference: "EFT 2990" }] },

@@ -135,6 +135,16 @@ export async function seedWorkOrders(ctx: SeedContext): Promise<void> {
       ctx.ids.set(`wo:W-${number}`, woId);
     }
   }
+  // The school district's big job of this fiscal year (Bus 31), about three months ago.
+  number += 1;
+  ctx.ids.set(
+    `wo:W-${number}`,
+    await insertWorkOrder(ctx, {
+      key: `W-${number}`, number, unit: "BUS-31", status: "released", tech: "tech", openedDaysAgo: 100,
+      title: "Transmission replacement and rear axle reseal",
+      concerns: [{ complaint: "Transmission slipping between 2nd and 3rd; oil on the rear axle hubs.", cause: "Clutch pack failure; hub seals leaking.", correction: "Replaced transmission with a remanufactured unit; resealed the rear axle." }],
+    }, techs, writer),
+  );
   if (number >= 1042) throw new Error("seed: history numbers ran into the open work orders");
 
   for (const wo of OPEN_WORK_ORDERS) {

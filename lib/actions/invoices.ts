@@ -8,7 +8,7 @@ import { guardedAction } from "@/lib/auth/guarded-action";
 import { CAN } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
-import { localMiddayIso } from "@/lib/invoices/calendar";
+import { localMiddayIso } from "@/lib/dates";
 import { deliverLater } from "@/lib/mail/deliver";
 import { notifyInvoiceIssued, notifyPaymentReceived } from "@/lib/mail/invoice-notices";
 import { expireCheckoutSession } from "@/lib/payments/stripe";

@@ -1,6 +1,6 @@
 import { formatCents, type Cents } from "@/lib/money";
 import type { InvoiceStatus } from "@/lib/domain";
-import { addDays } from "./calendar";
+import { addDays } from "@/lib/dates";
 
 /** What people read: the stored status plus "partly paid" for an open invoice with money on it. */
 export type PaymentState = "open" | "partly_paid" | "paid" | "void";

@@ -1,5 +1,5 @@
 import { sumCents, type Cents } from "@/lib/money";
-import { daysBetween } from "@/lib/invoices/calendar";
+import { daysBetween } from "@/lib/dates";
 
 /** Days past due, in the buckets a statement shows (api-v1.md names). */
 export const AGEING_BUCKETS = ["current", "days1to30", "days31to60", "days61to90", "over90"] as const;

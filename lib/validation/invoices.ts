@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { isCalendarDate } from "@/lib/invoices/calendar";
+import { isCalendarDate } from "@/lib/dates";
 import { parseDollars } from "@/lib/money";
 
 const id = z.string().min(1).max(64);

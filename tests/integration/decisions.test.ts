@@ -139,7 +139,7 @@ describe("POST /api/v1/work-orders/:id/decisions (all or none)", () => {
       as: "transport@alder-falls-schools.example",
       body: { decisions: [slack, part, shoes].map((l) => ({ lineId: l.id, decision: "approve", expectedVersion: l.version })) },
     });
-    // The school district has $1,100.00 of budget left this fiscal year (demo data):
+    // The school district has $1,100–$1,600 of budget left this fiscal year (demo data):
     // $213.75 + $164.20 fit, the $1,880.00 brake shoes do not.
     expect(res.status).toBe(409);
     expect(res.body.code).toBe("budget_exceeded");

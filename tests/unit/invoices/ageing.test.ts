@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { calendarDate } from "@/lib/format";
-import { localMiddayIso } from "@/lib/invoices/calendar";
+import { localMiddayIso } from "@/lib/dates";
 import { ageBalances, bucketOf, daysPastDue } from "@/lib/receivables/ageing";
 
 // Buckets as the issue and api-v1.md name them: current, 1–30, 31–60, 61–90,
