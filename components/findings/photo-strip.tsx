@@ -11,8 +11,10 @@ export interface PhotoView {
   height: number | null;
 }
 
+const THUMB = { md: { px: 96, className: "size-24" }, sm: { px: 64, className: "size-16" } } as const;
+
 /** Thumbnails in a row; a tap opens the full-size photo over the page, with next and previous. */
-export function PhotoStrip({ photos, title }: { photos: readonly PhotoView[]; title: string }) {
+export function PhotoStrip({ photos, title, size = "md" }: { photos: readonly PhotoView[]; title: string; size?: keyof typeof THUMB }) {
   const dialog = useRef<HTMLDialogElement>(null);
   // Which photo is open, or null: the full-size image is fetched only when someone asks for it.
   const [open, setOpen] = useState<number | null>(null);
@@ -35,7 +37,15 @@ export function PhotoStrip({ photos, title }: { photos: readonly PhotoView[]; ti
             >
               {/* Served by our own scoped route with the session cookie; the image optimiser could not fetch it. */}
               {/* eslint-disable-next-line @next/next/no-img-element */}
-              <img src={p.thumbUrl} alt="" width={96} height={96} loading="lazy" className="size-24 object-cover" data-testid="photo-thumb" />
+              <img
+                src={p.thumbUrl}
+                alt=""
+                width={THUMB[size].px}
+                height={THUMB[size].px}
+                loading="lazy"
+                className={`${THUMB[size].className} object-cover`}
+                data-testid="photo-thumb"
+              />
             </button>
           </li>
         ))}

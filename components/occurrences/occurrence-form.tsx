@@ -5,9 +5,20 @@ import { useNow } from "@/components/data/use-now";
 import { inputClass } from "@/components/forms/field";
 import { Button } from "@/components/ui/button";
 import { formatDateTime } from "@/lib/format";
-import { draftFieldOf, draftHasContent, draftToBody, emptyDraft, toggleSign, toLocalInput, type DraftField, type OccurrenceDraft } from "@/lib/occurrences/draft";
+import {
+  draftFieldOf,
+  draftHasContent,
+  draftToBody,
+  emptyDraft,
+  restoreDraft,
+  toggleSign,
+  toLocalInput,
+  type DraftField,
+  type OccurrenceDraft,
+} from "@/lib/occurrences/draft";
 import { SYMPTOMS, SYMPTOM_LABELS } from "@/lib/occurrences/symptoms";
 import { Chips, Question, TypedNumber } from "./form-parts";
+import { OccurrencePhotoField } from "./occurrence-photo-field";
 import { UnitToggle } from "./unit-toggle";
 import { useTemperatureUnit } from "./use-temperature-unit";
 
@@ -37,10 +48,12 @@ function draftKey(unitId: string) {
   return `cotter:occurrence-draft:${unitId}`;
 }
 
-function loadDraft(unitId: string): { draft: OccurrenceDraft; savedAt: number } | null {
+function loadDraft(unitId: string, fallback: OccurrenceDraft): { draft: OccurrenceDraft; savedAt: number } | null {
   try {
     const raw = window.localStorage.getItem(draftKey(unitId));
-    return raw ? (JSON.parse(raw) as { draft: OccurrenceDraft; savedAt: number }) : null;
+    if (!raw) return null;
+    const kept = JSON.parse(raw) as { draft: Partial<OccurrenceDraft>; savedAt: number };
+    return { draft: restoreDraft(kept.draft, fallback), savedAt: kept.savedAt };
   } catch {
     return null;
   }
@@ -57,13 +70,14 @@ function OccurrenceFormInner({ unitId, concerns, onLogged }: { unitId: string; c
   const [preferredUnit, setPreferredUnit] = useTemperatureUnit();
   const fresh = () => emptyDraft(concerns.length === 1 ? concerns[0]!.id : null, preferredUnit);
   const [restored] = useState(() => {
-    const kept = loadDraft(unitId);
+    const kept = loadDraft(unitId, fresh());
     return kept && draftHasContent(kept.draft) ? kept : null;
   });
   const [draft, setDraft] = useState<OccurrenceDraft>(() => restored?.draft ?? fresh());
   const [showRestored, setShowRestored] = useState(restored !== null);
   const [errors, setErrors] = useState<Partial<Record<DraftField, string>>>({});
   const [status, setStatus] = useState<Status>({ kind: "idle" });
+  const [photoBusy, setPhotoBusy] = useState(false);
   const temperatureInput = useRef<HTMLInputElement>(null);
 
   // Every keystroke is kept on the phone, so a lost signal or a closed tab loses nothing.
@@ -83,6 +97,7 @@ function OccurrenceFormInner({ unitId, concerns, onLogged }: { unitId: string; c
   };
 
   async function send() {
+    if (photoBusy) return;
     const attemptAt = Date.now();
     const parsed = draftToBody(draft, attemptAt);
     if (!parsed.ok) {
@@ -219,6 +234,10 @@ function OccurrenceFormInner({ unitId, concerns, onLogged }: { unitId: string; c
         <textarea aria-label="Anything else" rows={2} maxLength={1000} className={`${inputClass} py-2`} value={draft.note} onChange={(e) => set("note", e.target.value)} placeholder="What you tried, who saw it" />
       </Question>
 
+      <Question id="photo" label="A photo (optional)" error={errors.photo}>
+        <OccurrencePhotoField unitId={unitId} photo={draft.photo} onChange={(p) => set("photo", p)} onBusyChange={setPhotoBusy} />
+      </Question>
+
       {/* Status and Send stay in reach of a thumb at the foot of the screen. */}
       <div className="sticky bottom-0 -mx-4 flex flex-col gap-2 border-t border-rule bg-paper-card/95 px-4 pt-2 pb-3">
         <div aria-live="polite" className="flex flex-col gap-2">
@@ -236,8 +255,8 @@ function OccurrenceFormInner({ unitId, concerns, onLogged }: { unitId: string; c
             </p>
           ) : null}
         </div>
-        <Button type="submit" disabled={sending} className="min-h-14 w-full text-lg">
-          {sending ? "Sending…" : "Send to the shop"}
+        <Button type="submit" disabled={sending || photoBusy} className="min-h-14 w-full text-lg">
+          {sending ? "Sending…" : photoBusy ? "Waiting for the photo…" : "Send to the shop"}
         </Button>
       </div>
     </form>

@@ -1,6 +1,6 @@
-import { and, asc, desc, eq, inArray, isNull, lt, or } from "drizzle-orm";
+import { and, desc, eq, isNull, lt, or } from "drizzle-orm";
 import { getDb, writeTx, type Tx } from "@/db/client";
-import { concerns, occurrences, photos, units, users, workOrders } from "@/db/schema";
+import { concerns, occurrences, units, users, workOrders } from "@/db/schema";
 import { isStaff } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { nowIso } from "@/lib/ids";
@@ -8,6 +8,7 @@ import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
 import { forbidden, invalidInput, notFound } from "@/lib/http/problem";
 import type { OccurrenceInput, OccurrencePatch } from "@/lib/validation/occurrence";
 import { recordAudit } from "./audit";
+import { attachOccurrencePhoto, detachOccurrencePhotos, photosOfOccurrences, type OccurrencePhotoRef } from "./occurrence-photos";
 import { scopedTo } from "./scope";
 
 /** The unit, only if the caller may see it: another account's unit is simply not found. */
@@ -57,7 +58,7 @@ interface OccurrenceRow {
 }
 
 /** The API's shape for one entry; `canEdit` tells the caller whether PATCH would be allowed. */
-export function occurrenceJson(row: OccurrenceRow, user: SessionUser, photo: { id: string } | null = null) {
+export function occurrenceJson(row: OccurrenceRow, user: SessionUser, photo: OccurrencePhotoRef | null = null) {
   const { createdById, createdByName, ...rest } = row;
   return {
     ...rest,
@@ -125,17 +126,11 @@ export async function listOccurrences(
     .orderBy(desc(occurrences.occurredAt), desc(occurrences.id))
     .limit(opts.limit + 1);
   const { page, nextCursor } = paginate(rows, opts.limit, (r) => [r.occurredAt, r.id]);
-  const photoRows = page.length
-    ? await getDb()
-        .select({ id: photos.id, occurrenceId: photos.occurrenceId })
-        .from(photos)
-        .where(inArray(photos.occurrenceId, page.map((r) => r.id)))
-        .orderBy(asc(photos.createdAt))
-    : [];
+  const photoOf = await photosOfOccurrences(page.map((r) => r.id));
   const concernRows = await unitIntermittentConcerns(unit.id);
   return {
     unit: { id: unit.id, unitNumber: unit.unitNumber },
-    occurrences: page.map((r) => occurrenceJson(r, user, photoRows.find((p) => p.occurrenceId === r.id) ?? null)),
+    occurrences: page.map((r) => occurrenceJson(r, user, photoOf.get(r.id) ?? null)),
     nextCursor,
     concerns: concernRows,
   };
@@ -167,12 +162,13 @@ export async function addOccurrence(user: SessionUser, unitId: string, input: Oc
     const unit = await findScopedUnit(user, unitId, tx);
     if (!unit) throw notFound("That unit");
     const concern = await resolveConcern(tx, unit.id, input.concernId);
-    const { concernId: _ignored, ...values } = input;
+    const { concernId: _ignored, photoId, ...values } = input;
     const [row] = await tx
       .insert(occurrences)
       .values({ ...values, unitId: unit.id, accountId: unit.accountId, concernId: concern?.id ?? null, createdBy: user.id })
       .returning({ id: occurrences.id });
-    await recordAudit(tx, user, { action: "occurrence.logged", entityType: "occurrence", entityId: row!.id, accountId: unit.accountId, detail: { unitId: unit.id, concernId: concern?.id ?? null } });
+    if (photoId) await attachOccurrencePhoto(tx, user, { id: row!.id, unitId: unit.id, accountId: unit.accountId }, photoId);
+    await recordAudit(tx, user, { action: "occurrence.logged", entityType: "occurrence", entityId: row!.id, accountId: unit.accountId, detail: { unitId: unit.id, concernId: concern?.id ?? null, photoId } });
     return { id: row!.id, unit, concern };
   });
 }
@@ -184,7 +180,9 @@ export async function getOccurrence(user: SessionUser, unitId: string, occurrenc
     .leftJoin(users, eq(users.id, occurrences.createdBy))
     .where(and(eq(occurrences.id, occurrenceId), eq(occurrences.unitId, unitId), scopedTo(occurrences.accountId, user)))
     .limit(1);
-  return row ? occurrenceJson(row, user) : null;
+  if (!row) return null;
+  const photo = (await photosOfOccurrences([row.id])).get(row.id) ?? null;
+  return occurrenceJson(row, user, photo);
 }
 
 /** Only the person who logged an entry, or the shop, may change it. */
@@ -202,7 +200,13 @@ export async function updateOccurrence(user: SessionUser, unitId: string, occurr
     const symptom = patch.symptom ?? row.symptom;
     const symptomText = patch.symptomText ?? row.symptomText;
     if (symptom === "other" && !symptomText) throw invalidInput([{ path: "symptomText", message: "Say in a few words what it did." }]);
-    await tx.update(occurrences).set({ ...patch, updatedAt: nowIso() }).where(eq(occurrences.id, row.id));
+    const { photoId, ...fields } = patch;
+    if (photoId !== undefined) {
+      // The new photo is checked first: a refused one leaves the entry's photo as it was.
+      if (photoId) await attachOccurrencePhoto(tx, user, { id: row.id, unitId, accountId: row.accountId }, photoId);
+      await detachOccurrencePhotos(tx, row.id, photoId);
+    }
+    await tx.update(occurrences).set({ ...fields, updatedAt: nowIso() }).where(eq(occurrences.id, row.id));
     await recordAudit(tx, user, { action: "occurrence.edited", entityType: "occurrence", entityId: row.id, accountId: row.accountId, detail: { fields: Object.keys(patch) } });
   });
   return getOccurrence(user, unitId, occurrenceId);

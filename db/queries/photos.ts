@@ -1,6 +1,6 @@
 import { and, eq, isNotNull, or } from "drizzle-orm";
 import { getDb, writeTx } from "@/db/client";
-import { photos, units, workOrders } from "@/db/schema";
+import { occurrences, photos, units, workOrders } from "@/db/schema";
 import { isStaff } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { scopedTo } from "./scope";
@@ -19,7 +19,7 @@ export async function workOrderForUpload(user: SessionUser, workOrderId: string)
 export interface NewPhoto {
   accountId: string;
   unitId: string;
-  workOrderId: string;
+  workOrderId: string | null;
   uploadedBy: string;
   fileKey: string;
   fileUrl: string;
@@ -45,17 +45,22 @@ export async function insertPhoto(photo: NewPhoto): Promise<string> {
 /**
  * A photo's stored keys, if this user may see it: shop staff see every photo;
  * fleet people see only their own account's photos that are on a posted
- * finding or their own occurrence log, never a technician's unposted upload.
+ * finding or on an entry in their account's occurrence log, and their own
+ * uploads; never someone else's upload that is not posted yet.
  */
 export async function findPhotoFile(user: SessionUser, photoId: string) {
   const [row] = await getDb()
     .select({ id: photos.id, fileKey: photos.fileKey, thumbKey: photos.thumbKey, mime: photos.mime, name: photos.name })
     .from(photos)
+    .leftJoin(occurrences, eq(occurrences.id, photos.occurrenceId))
     .where(
       and(
         eq(photos.id, photoId),
         scopedTo(photos.accountId, user),
-        isStaff(user) ? undefined : or(isNotNull(photos.findingId), isNotNull(photos.occurrenceId)),
+        isStaff(user)
+          ? undefined
+          : // Their own new upload too, so the phone can show what it just sent before the entry is.
+            or(isNotNull(photos.findingId), scopedTo(occurrences.accountId, user), eq(photos.uploadedBy, user.id)),
       ),
     )
     .limit(1);

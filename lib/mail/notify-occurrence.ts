@@ -1,3 +1,4 @@
+import { photosOfOccurrences } from "@/db/queries/occurrence-photos";
 import { occurrenceMailFacts, occurrenceRecipients } from "@/db/queries/occurrence-recipients";
 import { env } from "@/lib/env";
 import { appUrl, sendMail } from "./send";
@@ -8,7 +9,7 @@ export async function notifyOccurrence(occurrenceId: string): Promise<{ sent: nu
   const facts = await occurrenceMailFacts(occurrenceId);
   if (!facts) return { sent: 0, failed: 0 };
   const o = facts.occurrence;
-  const to = await occurrenceRecipients(o.unitId, o.concernId);
+  const [to, photos] = await Promise.all([occurrenceRecipients(o.unitId, o.concernId), photosOfOccurrences([o.id])]);
   const mail = occurrenceLoggedMail({
     unitNumber: facts.unitNumber,
     accountName: facts.accountName,
@@ -23,6 +24,7 @@ export async function notifyOccurrence(occurrenceId: string): Promise<{ sent: nu
     batteryVolts: o.batteryVolts,
     recovered: o.recovered,
     note: o.note,
+    hasPhoto: photos.has(o.id),
     url: appUrl(o.concernId ? `/concerns/${o.concernId}` : `/units/${o.unitId}#occurrences`),
     timeZone: env().APP_TIME_ZONE,
   });

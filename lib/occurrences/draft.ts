@@ -1,6 +1,14 @@
 import type { Symptom } from "./symptoms";
 import type { TemperatureUnit } from "./temperature";
 
+/** A photo already uploaded for the entry: only its id goes in the body; the rest shows it again after a reload. */
+export interface DraftPhoto {
+  photoId: string;
+  name: string;
+  url: string;
+  thumbUrl: string;
+}
+
 /**
  * The fleet's form as typed: strings, so a half-typed "−" or "12," survives a
  * lost signal and a reload exactly as it was. Turned into the API body only
@@ -18,17 +26,23 @@ export interface OccurrenceDraft {
   batteryVolts: string;
   recovered: "yes" | "no" | "";
   note: string;
+  photo: DraftPhoto | null;
 }
 
-export type DraftField = "when" | "hoursParked" | "temperature" | "symptom" | "symptomText" | "batteryVolts" | "note" | "concernId";
+export type DraftField = "when" | "hoursParked" | "temperature" | "symptom" | "symptomText" | "batteryVolts" | "note" | "concernId" | "photo";
 
 export function emptyDraft(concernId: string | null, unit: TemperatureUnit): OccurrenceDraft {
-  return { concernId, when: "now", hoursParked: "", temperature: "", unit, symptom: "", symptomText: "", batteryVolts: "", recovered: "", note: "" };
+  return { concernId, when: "now", hoursParked: "", temperature: "", unit, symptom: "", symptomText: "", batteryVolts: "", recovered: "", note: "", photo: null };
+}
+
+/** A draft kept on the phone by an earlier version of the form, filled out to today's shape. */
+export function restoreDraft(kept: Partial<OccurrenceDraft>, fallback: OccurrenceDraft): OccurrenceDraft {
+  return { ...fallback, ...kept, photo: kept.photo ?? null };
 }
 
 /** True when the person has entered anything worth keeping. */
 export function draftHasContent(d: OccurrenceDraft): boolean {
-  return d.when !== "now" || [d.hoursParked, d.temperature, d.symptom, d.symptomText, d.batteryVolts, d.recovered, d.note].some((v) => v.trim() !== "");
+  return d.when !== "now" || d.photo !== null || [d.hoursParked, d.temperature, d.symptom, d.symptomText, d.batteryVolts, d.recovered, d.note].some((v) => v.trim() !== "");
 }
 
 /**
@@ -68,6 +82,7 @@ export interface DraftBody {
   recovered?: boolean;
   note?: string;
   concernId?: string;
+  photoId?: string;
 }
 
 /**
@@ -101,6 +116,7 @@ export function draftToBody(
   if (d.recovered) body.recovered = d.recovered === "yes";
   if (d.note.trim()) body.note = d.note.trim();
   if (d.concernId) body.concernId = d.concernId;
+  if (d.photo) body.photoId = d.photo.photoId;
   return { ok: true, body };
 }
 
@@ -119,6 +135,8 @@ export function draftFieldOf(apiPath: string): DraftField | null {
     case "note":
     case "concernId":
       return apiPath;
+    case "photoId":
+      return "photo";
     default:
       return null;
   }

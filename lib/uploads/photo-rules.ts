@@ -1,7 +1,8 @@
 /**
- * What a finding's photo may be, checked the same way on the phone (before
- * anything is sent), in the upload route's middleware (before a URL is signed)
- * and on the stored bytes (the only check that cannot be lied to). Pure.
+ * What a photo (a finding's or an occurrence's) may be, checked the same way
+ * on the phone (before anything is sent), in the upload route's middleware
+ * (before a URL is signed) and on the stored bytes (the only check that cannot
+ * be lied to). Pure.
  */
 
 /** 8 MB as the upload SDK counts it (1 MB = 1024 × 1024 bytes). */
@@ -66,13 +67,28 @@ export function refusalFor(file: FileFacts): string | null {
   return null;
 }
 
-/** Every reason a batch is refused: each file's, and too many for one finding. */
-export function refusalsFor(files: readonly FileFacts[], alreadyAttached = 0): string[] {
+/** How many photos one thing takes, and how to say there are too many. */
+export interface PhotoLimit {
+  max: number;
+  tooMany: (room: number) => string;
+}
+
+export const FINDING_PHOTOS: PhotoLimit = {
+  max: PHOTOS_PER_FINDING,
+  tooMany: (room) => `A finding takes at most ${PHOTOS_PER_FINDING} photos; there is room for ${room} more.`,
+};
+
+/** A driver's entry in the occurrence log: one photo (or a still from a short video) is enough to show the shop. */
+export const PHOTOS_PER_OCCURRENCE = 1;
+export const OCCURRENCE_PHOTOS: PhotoLimit = {
+  max: PHOTOS_PER_OCCURRENCE,
+  tooMany: () => "An entry in the occurrence log takes one photo.",
+};
+
+/** Every reason a batch is refused: each file's, and too many for what they are attached to. */
+export function refusalsFor(files: readonly FileFacts[], alreadyAttached = 0, limit: PhotoLimit = FINDING_PHOTOS): string[] {
   const reasons = files.map(refusalFor).filter((r): r is string => r !== null);
-  if (alreadyAttached + files.length > PHOTOS_PER_FINDING) {
-    const room = Math.max(PHOTOS_PER_FINDING - alreadyAttached, 0);
-    reasons.push(`A finding takes at most ${PHOTOS_PER_FINDING} photos; there is room for ${room} more.`);
-  }
+  if (alreadyAttached + files.length > limit.max) reasons.push(limit.tooMany(Math.max(limit.max - alreadyAttached, 0)));
   return reasons;
 }
 

@@ -11,7 +11,8 @@ export type PhotoUploadMeta = {
   userId: string;
   accountId: string;
   unitId: string;
-  workOrderId: string;
+  /** Null for an occurrence's photo: it belongs to the unit, not to a visit. */
+  workOrderId: string | null;
 };
 
 export type PhotoUploadResult =

@@ -28,6 +28,8 @@ const fields = {
   recovered: z.boolean({ error: "Say true, false or null." }).nullable(),
   note: z.string({ error: "Must be text." }).trim().max(1000, "Keep the note under 1,000 characters."),
   concernId: z.string().min(1).max(64).nullable(),
+  // A photo the caller uploaded through the upload route's occurrencePhoto endpoint; null takes it off.
+  photoId: z.string({ error: "Give the photo's id as the upload returned it." }).min(1).max(64).nullable(),
 };
 
 type Raw = { occurredAt?: string; ambientC?: number | null; ambientF?: number | null; symptom?: string; symptomText?: string };
@@ -62,7 +64,7 @@ const utc = (iso: string) => new Date(iso).toISOString();
 
 /**
  * POST /api/v1/units/:id/occurrences: { occurredAt, hoursParked?, ambientC?, symptom,
- * batteryVolts?, note? } per api-v1.md, plus optional ambientF, symptomText, recovered, concernId.
+ * batteryVolts?, note? } per api-v1.md, plus optional ambientF, symptomText, recovered, concernId, photoId.
  */
 export function makeOccurrenceInput(clock: () => number = Date.now) {
   return z
@@ -77,6 +79,7 @@ export function makeOccurrenceInput(clock: () => number = Date.now) {
       recovered: fields.recovered.optional(),
       note: fields.note.default(""),
       concernId: fields.concernId.optional(),
+      photoId: fields.photoId.optional(),
     })
     .superRefine(refine(clock))
     .transform((v) => ({
@@ -89,10 +92,11 @@ export function makeOccurrenceInput(clock: () => number = Date.now) {
       recovered: v.recovered ?? null,
       note: v.note,
       concernId: v.concernId ?? null,
+      photoId: v.photoId ?? null,
     }));
 }
 
-/** PATCH: any of the same fields; the author or the shop may correct an entry. */
+/** PATCH: any of the same fields; the author or the shop may correct an entry. A new photoId replaces the photo, null removes it. */
 export function makeOccurrencePatch(clock: () => number = Date.now) {
   return z
     .object({
@@ -105,6 +109,7 @@ export function makeOccurrencePatch(clock: () => number = Date.now) {
       batteryVolts: fields.batteryVolts.optional(),
       recovered: fields.recovered.optional(),
       note: fields.note.optional(),
+      photoId: fields.photoId.optional(),
     })
     .superRefine((v, ctx) => {
       if (Object.values(v).every((x) => x === undefined)) {

@@ -193,7 +193,7 @@ describe("a technician's finding with two photos, through the upload SDK and the
       message: "Your role may not add photos to findings.",
     });
     await expect(upload([await pngPhoto("a.png")], "no-such-work-order")).rejects.toMatchObject({ message: "That work order was not found." });
-    expect(Object.keys(photoRouter)).toEqual(["findingPhotos"]);
+    expect(Object.keys(photoRouter)).toEqual(["findingPhotos", "occurrencePhoto"]);
   });
 
   it("will not attach another technician's photo", async () => {

@@ -1,13 +1,13 @@
 import { createUploadthing, type FileRouter } from "uploadthing/server";
 import { z } from "zod";
-import { authorisePhotoUpload } from "@/lib/uploads/authorise-upload";
-import { PHOTO_MAX_SIZE_LABEL, PHOTOS_PER_FINDING } from "@/lib/uploads/photo-rules";
+import { authoriseOccurrencePhotoUpload, authorisePhotoUpload } from "@/lib/uploads/authorise-upload";
+import { PHOTO_MAX_SIZE_LABEL, PHOTOS_PER_FINDING, PHOTOS_PER_OCCURRENCE } from "@/lib/uploads/photo-rules";
 import { storeUploadedPhoto } from "@/lib/uploads/store-photo";
 
 const f = createUploadthing();
 
-/** Photos for a technician's finding, several at a time from the phone's camera. */
 export const photoRouter = {
+  /** Photos for a technician's finding, several at a time from the phone's camera. */
   findingPhotos: f({ image: { maxFileSize: PHOTO_MAX_SIZE_LABEL, maxFileCount: PHOTOS_PER_FINDING } })
     .input(
       z.object({
@@ -17,6 +17,12 @@ export const photoRouter = {
       }),
     )
     .middleware(({ req, input, files }) => authorisePhotoUpload(req, input, files))
+    .onUploadComplete(({ metadata, file }) => storeUploadedPhoto(metadata, { key: file.key, name: file.name, size: file.size })),
+
+  /** The one photo a driver or foreman may add to an occurrence-log entry, before it is sent. */
+  occurrencePhoto: f({ image: { maxFileSize: PHOTO_MAX_SIZE_LABEL, maxFileCount: PHOTOS_PER_OCCURRENCE } })
+    .input(z.object({ unitId: z.string().min(1).max(64) }))
+    .middleware(({ req, input, files }) => authoriseOccurrencePhotoUpload(req, input, files))
     .onUploadComplete(({ metadata, file }) => storeUploadedPhoto(metadata, { key: file.key, name: file.name, size: file.size })),
 } satisfies FileRouter;
 

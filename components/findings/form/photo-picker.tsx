@@ -1,9 +1,10 @@
 "use client";
 
 import { useRef, useState } from "react";
+import { CameraIcon, UploadProblems, UploadProgress, contentRefusal, type InFlight } from "@/components/photos/upload-parts";
 import { buttonClass } from "@/components/ui/button";
 import type { PhotoUploadResult } from "@/lib/uploads/store-photo";
-import { ACCEPTED_WORDS, PHOTO_ACCEPT, PHOTOS_PER_FINDING, refusalFor, sniffPhotoKind } from "@/lib/uploads/photo-rules";
+import { ACCEPTED_WORDS, PHOTO_ACCEPT, PHOTOS_PER_FINDING, refusalFor } from "@/lib/uploads/photo-rules";
 import { uploadFiles } from "./upload-client";
 
 export interface UploadedPhoto {
@@ -11,18 +12,6 @@ export interface UploadedPhoto {
   name: string;
   url: string;
   thumbUrl: string;
-}
-
-interface InFlight {
-  key: string;
-  name: string;
-  percent: number;
-}
-
-/** Reads the first bytes in the browser, so a renamed text file is refused before it is sent. */
-async function contentRefusal(file: File): Promise<string | null> {
-  const head = new Uint8Array(await file.slice(0, 64).arrayBuffer());
-  return sniffPhotoKind(head) ? null : `${file.name} is not a ${ACCEPTED_WORDS} photo, whatever its name says.`;
 }
 
 /**
@@ -112,26 +101,8 @@ export function PhotoPicker({ workOrderId, photos, onChange }: { workOrderId: st
       <p className="text-sm text-ink-faint">
         {ACCEPTED_WORDS}, up to 8 MB each, {PHOTOS_PER_FINDING} per finding. Location data is removed before the customer sees them.
       </p>
-      {inFlight.length ? (
-        <ul className="flex flex-col gap-2" aria-live="polite">
-          {inFlight.map((u) => (
-            <li key={u.key} className="text-sm">
-              <div className="flex justify-between gap-2">
-                <span className="truncate">{u.name}</span>
-                <span className="figures">{u.percent < 100 ? `${u.percent} %` : "Cleaning…"}</span>
-              </div>
-              <progress className="h-3 w-full accent-rust" max={100} value={u.percent} aria-label={`Uploading ${u.name}`} />
-            </li>
-          ))}
-        </ul>
-      ) : null}
-      {problems.length ? (
-        <ul role="alert" className="rounded-card border-2 border-rust bg-rust-wash px-3 py-2 text-sm font-semibold text-rust-deep" data-testid="photo-problems">
-          {problems.map((p) => (
-            <li key={p}>{p}</li>
-          ))}
-        </ul>
-      ) : null}
+      <UploadProgress inFlight={inFlight} />
+      <UploadProblems problems={problems} />
       {photos.length ? (
         <ul className="grid grid-cols-3 gap-2 sm:grid-cols-4" data-testid="uploaded-photos">
           {photos.map((p) => (
@@ -151,14 +122,5 @@ export function PhotoPicker({ workOrderId, photos, onChange }: { workOrderId: st
         </ul>
       ) : null}
     </div>
-  );
-}
-
-function CameraIcon() {
-  return (
-    <svg width="24" height="24" viewBox="0 0 24 24" aria-hidden>
-      <path d="M4 7h3l2-2.5h6L17 7h3a1 1 0 0 1 1 1v10a1 1 0 0 1-1 1H4a1 1 0 0 1-1-1V8a1 1 0 0 1 1-1z" fill="none" stroke="currentColor" strokeWidth="2" />
-      <circle cx="12" cy="12.5" r="3.5" fill="none" stroke="currentColor" strokeWidth="2" />
-    </svg>
   );
 }

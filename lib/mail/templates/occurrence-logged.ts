@@ -19,6 +19,8 @@ export interface OccurrenceLoggedMail {
   batteryVolts: number | null;
   recovered: boolean | null;
   note: string;
+  /** The entry carries a photo; the mail only says so (photos are served to signed-in people only). */
+  hasPhoto?: boolean;
   /** Absolute link to the concern's page (or the unit's, when no concern is open). */
   url: string;
   timeZone?: string;
@@ -39,6 +41,7 @@ export function occurrenceLoggedMail(m: OccurrenceLoggedMail): RenderedMail {
     ["Logged by", `${m.loggedBy}, ${m.accountName}`],
   ];
   if (m.note) facts.push(["Note", m.note]);
+  if (m.hasPhoto) facts.push(["Photo", "Attached: open the log to see it"]);
   const ordinal = m.count === 1 ? "first entry" : `entry ${m.count}`;
   return renderMail({
     subject: `${m.unitNumber}: ${what.toLowerCase()} — occurrence logged (${ordinal})`,

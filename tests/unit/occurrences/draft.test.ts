@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { draftFieldOf, draftHasContent, draftToBody, emptyDraft, parseTyped, toggleSign } from "@/lib/occurrences/draft";
+import { draftFieldOf, draftHasContent, draftToBody, emptyDraft, parseTyped, restoreDraft, toggleSign } from "@/lib/occurrences/draft";
 import { T9_NO_START } from "@/db/seed/occurrences";
 import { summarizePattern } from "@/lib/occurrences/pattern";
 import { celsiusFromFahrenheit } from "@/lib/occurrences/temperature";
@@ -71,6 +71,25 @@ describe("draft → API body", () => {
     expect(draftHasContent(emptyDraft("c", "C"))).toBe(false);
     expect(draftHasContent({ ...emptyDraft("c", "C"), note: "x" })).toBe(true);
     expect(draftHasContent({ ...emptyDraft("c", "C"), when: "2026-01-11T06:05" })).toBe(true);
+  });
+});
+
+describe("the entry's photo in the draft (issue 6: an optional photo, kept with the draft)", () => {
+  const photo = { photoId: "p1", name: "dash.jpg", url: "/api/v1/photos/p1", thumbUrl: "/api/v1/photos/p1/thumb" };
+
+  it("sends only the uploaded photo's id, which the server schema accepts; its errors come back to the photo", () => {
+    const r = draftToBody({ ...emptyDraft(null, "C"), symptom: "no_start", photo }, NOW);
+    expect(r).toEqual({ ok: true, body: { occurredAt: "2026-01-12T12:30:00.000Z", symptom: "no_start", photoId: "p1" } });
+    expect(r.ok && makeOccurrenceInput(() => NOW).parse(r.body).photoId).toBe("p1");
+    expect(draftFieldOf("photoId")).toBe("photo");
+  });
+
+  it("a photo alone is worth keeping; a draft kept before photos existed comes back without one", () => {
+    expect(draftHasContent({ ...emptyDraft("c", "C"), photo })).toBe(true);
+    const { photo: _none, ...older } = { ...emptyDraft("c", "F"), note: "kept" };
+    const restored = restoreDraft(older, emptyDraft(null, "C"));
+    expect(restored).toMatchObject({ note: "kept", unit: "F", concernId: "c", photo: null });
+    expect(draftHasContent(restored)).toBe(true);
   });
 });
 

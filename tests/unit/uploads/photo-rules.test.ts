@@ -1,7 +1,7 @@
 import sharp from "sharp";
 import { describe, expect, it } from "vitest";
 import { jpegHasGps } from "@/lib/uploads/exif-gps";
-import { PHOTO_MAX_BYTES, declaredKind, refusalFor, refusalsFor, sniffPhotoKind } from "@/lib/uploads/photo-rules";
+import { OCCURRENCE_PHOTOS, PHOTO_MAX_BYTES, declaredKind, refusalFor, refusalsFor, sniffPhotoKind } from "@/lib/uploads/photo-rules";
 
 const bytes = (...values: (number | string)[]) =>
   Uint8Array.from(values.flatMap((v) => (typeof v === "string" ? [...v].map((c) => c.charCodeAt(0)) : [v])));
@@ -61,6 +61,12 @@ describe("refusals before upload (our rules: JPEG, PNG, WebP, HEIC; 8 MB each; 8
     expect(refusalsFor([{ name: "notes.txt", size: 10, type: "text/plain" }])).toEqual([
       "notes.txt is not a photo we can take: send JPEG, PNG, WebP or HEIC only.",
     ]);
+  });
+  it("an occurrence-log entry takes one photo, under the same type and size rules (issue 6: “an optional photo”)", () => {
+    const file = { name: "dash.jpg", size: 1000, type: "image/jpeg" };
+    expect(refusalsFor([file], 0, OCCURRENCE_PHOTOS)).toEqual([]);
+    expect(refusalsFor([file, file], 0, OCCURRENCE_PHOTOS)).toEqual(["An entry in the occurrence log takes one photo."]);
+    expect(refusalsFor([{ ...file, size: 20 * 1024 * 1024 }], 0, OCCURRENCE_PHOTOS)).toEqual(["dash.jpg is 20.0 MB; a photo may be at most 8 MB."]);
   });
 });
 
