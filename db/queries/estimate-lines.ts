@@ -5,7 +5,7 @@ import type { SessionUser } from "@/lib/auth/session-user";
 import { isApprovedState, reviseLine } from "@/lib/estimate";
 import { conflict, invalidInput, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
-import { formatCents, lineAmountCents } from "@/lib/money";
+import { formatCents } from "@/lib/money";
 import type { EditLineInput, NewLineInput } from "@/lib/validation/estimate-line";
 import { recordAudit } from "./audit";
 import { loadEstimateContext, toAccountSettings, toEstimateLine, type EstimateContext } from "./estimate-context";
@@ -256,8 +256,4 @@ export async function setLineProgress(user: SessionUser, lineId: string, state: 
     await recordAudit(tx, user, { action: `line.${state}`, entityType: "line", entityId: line.id, accountId: ctx.wo.accountId });
     return row!;
   });
-}
-
-export function amountOf(row: { quantityMilli: number; unitPriceCents: number }): number {
-  return lineAmountCents(row.quantityMilli, row.unitPriceCents);
 }

@@ -52,13 +52,6 @@ export function signingUsedCents(lines: readonly EstimateLine[], userId: string)
   return used;
 }
 
-/** Approved amounts on this work order (standing and approvers): its share of the budget used. */
-export function workOrderApprovedCents(lines: readonly EstimateLine[]): Cents {
-  let used = 0;
-  for (const line of lines) if (isApprovedState(line.state)) used += approvedAmountOf(line);
-  return used;
-}
-
 // A credit (zero or negative amount) lowers the total, so it is never refused.
 function exceeds(usedCents: Cents, newCents: Cents, limitCents: Cents): boolean {
   return newCents > 0 && usedCents + newCents > limitCents;
