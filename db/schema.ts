@@ -35,7 +35,6 @@ export const shopSettings = sqliteTable("shop_settings", {
   addressLine2: text("address_line2").notNull().default(""),
   phone: text("phone").notNull().default(""),
   email: text("email").notNull().default(""),
-  timeZone: text("time_zone").notNull().default("America/Chicago"),
   shopSuppliesRateMilliPct: integer("shop_supplies_rate_milli_pct").notNull().default(0),
   shopSuppliesCapCents: integer("shop_supplies_cap_cents").notNull().default(0),
   shopSuppliesTaxable: bool("shop_supplies_taxable").notNull().default(false),

@@ -386,7 +386,6 @@ CREATE TABLE `shop_settings` (
 	`address_line2` text DEFAULT '' NOT NULL,
 	`phone` text DEFAULT '' NOT NULL,
 	`email` text DEFAULT '' NOT NULL,
-	`time_zone` text DEFAULT 'America/Chicago' NOT NULL,
 	`shop_supplies_rate_milli_pct` integer DEFAULT 0 NOT NULL,
 	`shop_supplies_cap_cents` integer DEFAULT 0 NOT NULL,
 	`shop_supplies_taxable` integer DEFAULT false NOT NULL,

@@ -7,16 +7,14 @@ import { nowIso } from "@/lib/ids";
 import type { AccountSettingsInput } from "@/lib/validation/account";
 import { recordAudit } from "./audit";
 import { budgetUsedCents, currentFiscalYear } from "./estimate-context";
-import { getShopSettings } from "./settings";
 
 /** Every fleet account with its budget used this fiscal year (shop staff only). */
 export async function listAccountsWithBudget() {
   const db = getDb();
-  const shop = await getShopSettings();
   const rows = await db.select().from(accounts).orderBy(asc(accounts.name));
   return Promise.all(
     rows.map(async (a) => {
-      const bounds = currentFiscalYear(a, shop.timeZone);
+      const bounds = currentFiscalYear(a);
       return { ...a, budgetUsedCents: await budgetUsedCents(db, a.id, bounds), fiscalYear: bounds.fy.label };
     }),
   );
@@ -26,8 +24,7 @@ export async function accountSettingsPage(accountId: string) {
   const db = getDb();
   const [account] = await db.select().from(accounts).where(eq(accounts.id, accountId)).limit(1);
   if (!account) return null;
-  const shop = await getShopSettings();
-  const bounds = currentFiscalYear(account, shop.timeZone);
+  const bounds = currentFiscalYear(account);
   const [people, changes, used] = await Promise.all([
     db
       .select({ id: users.id, name: users.name, email: users.email, role: users.role, signingLimitCents: users.signingLimitCents, active: users.active })

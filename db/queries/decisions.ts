@@ -9,7 +9,6 @@ import { nowIso } from "@/lib/ids";
 import { formatCents } from "@/lib/money";
 import { recordAudit } from "./audit";
 import { budgetUsedCents, currentFiscalYear, loadEstimateContext, toAccountSettings, toEstimateLine, toShopSettings } from "./estimate-context";
-import { getShopSettings } from "./settings";
 import { scopedTo } from "./scope";
 
 /** The work order a line belongs to, scoped: another account's line is not found. */
@@ -74,10 +73,9 @@ export function describeDecisions(changes: LineChange[]): string {
  * amounts; a line of another account is 404.
  */
 export async function decide(user: SessionUser, workOrderId: string, requests: DecisionRequest[]) {
-  const shopRow = await getShopSettings();
   return writeTx(async (tx) => {
     const ctx = await loadEstimateContext(tx, user, workOrderId);
-    const bounds = currentFiscalYear(ctx.account, shopRow.timeZone);
+    const bounds = currentFiscalYear(ctx.account);
     const result = decideLines({
       workOrderNumber: workOrderLabel(ctx.wo.number),
       lines: ctx.lines.map(toEstimateLine),

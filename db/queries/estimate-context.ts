@@ -4,6 +4,7 @@ import { accounts, estimateLines, shopSettings, workOrders, type Account, type E
 import type { SessionUser } from "@/lib/auth/session-user";
 import { addDays, startOfDayIso } from "@/lib/dates";
 import { APPROVED_STATES, fiscalYearOf, type AccountSettings, type EstimateLine, type FiscalYear, type ShopSettings } from "@/lib/estimate";
+import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
 import { notFound } from "@/lib/http/problem";
 import { scopedTo } from "./scope";
@@ -70,7 +71,8 @@ export async function loadEstimateContext(tx: Reader, user: SessionUser, workOrd
 export type EstimateContext = Awaited<ReturnType<typeof loadEstimateContext>>;
 
 /** The fiscal year containing `now` for an account, with its UTC bounds in the shop's time zone. */
-export function currentFiscalYear(account: Pick<Account, "fiscalYearStartMonth">, timeZone: string, now = new Date()) {
+/** Fiscal years turn at midnight in the shop's time zone (APP_TIME_ZONE), the one zone every date uses. */
+export function currentFiscalYear(account: Pick<Account, "fiscalYearStartMonth">, now = new Date(), timeZone = env().APP_TIME_ZONE) {
   const fy: FiscalYear = fiscalYearOf(calendarDate(now, timeZone), account.fiscalYearStartMonth);
   return { fy, fromIso: startOfDayIso(fy.startDate, timeZone), toIso: startOfDayIso(addDays(fy.endDate, 1), timeZone) };
 }

@@ -11,7 +11,6 @@ import { recordAudit } from "./audit";
 import { writeLineChanges } from "./decisions";
 import { budgetUsedCents, currentFiscalYear, loadEstimateContext, toAccountSettings, toEstimateLine, toShopSettings } from "./estimate-context";
 import { assertOpen } from "./estimate-lines";
-import { getShopSettings } from "./settings";
 
 /**
  * Sends the draft lines to the fleet: they become "waiting on decision", the
@@ -49,11 +48,10 @@ export async function sendEstimate(user: SessionUser, workOrderId: string) {
  * amount per work order and the repair budget.
  */
 export async function startUnderStanding(user: SessionUser, workOrderId: string, lineIds: string[]) {
-  const shopRow = await getShopSettings();
   return writeTx(async (tx) => {
     const ctx = await loadEstimateContext(tx, user, workOrderId);
     assertOpen(ctx);
-    const bounds = currentFiscalYear(ctx.account, shopRow.timeZone);
+    const bounds = currentFiscalYear(ctx.account);
     const lines = ctx.lines.map(toEstimateLine);
     const result = applyStandingAuthorisation({
       workOrderNumber: workOrderLabel(ctx.wo.number),

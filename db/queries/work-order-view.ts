@@ -3,7 +3,6 @@ import type { SessionUser } from "@/lib/auth/session-user";
 import { isStaff } from "@/lib/auth/policy";
 import { limitsView, priceEstimate } from "@/lib/estimate";
 import { budgetUsedCents, currentFiscalYear, loadEstimateContext, toAccountSettings, toEstimateLine, toShopSettings } from "./estimate-context";
-import { getShopSettings } from "./settings";
 import { findWorkOrder, loadConcerns, loadFindings, loadLatestDecisions, loadTimeline } from "./work-order-detail";
 
 /**
@@ -14,10 +13,9 @@ import { findWorkOrder, loadConcerns, loadFindings, loadLatestDecisions, loadTim
 export async function workOrderView(user: SessionUser, id: string) {
   const wo = await findWorkOrder(user, id);
   if (!wo) return null;
-  const shopRow = await getShopSettings();
   const db = getDb();
   const ctx = await loadEstimateContext(db, user, wo.id);
-  const bounds = currentFiscalYear(ctx.account, shopRow.timeZone);
+  const bounds = currentFiscalYear(ctx.account);
   const [timeline, concerns, findings, decisions, used] = await Promise.all([
     loadTimeline(wo.id),
     loadConcerns(wo.id),

@@ -12,7 +12,6 @@ export async function seedShop(ctx: SeedContext, passwordHash: string): Promise<
     addressLine2: "Alder Falls",
     phone: "(555) 010-4417",
     email: "service@quarry-road.example",
-    timeZone: "America/Chicago",
     // 8 % of labour, never more than $50 (a shop setting; common practice in the trade).
     shopSuppliesRateMilliPct: 8_000,
     shopSuppliesCapCents: 5_000,

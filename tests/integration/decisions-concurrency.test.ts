@@ -40,7 +40,7 @@ describe("limits hold under concurrent decisions (one transaction per decision)"
     const { wo, lines, accountId } = await openWorkOrderWithLines(28, 100_000);
     // Leave exactly $9,500.00 of budget this fiscal year: room for nine $1,000.00 lines.
     const [account] = await getDb().select().from(accounts).where(eq(accounts.id, accountId));
-    const used = await budgetUsedCents(getDb(), accountId, currentFiscalYear(account!, "America/Chicago"));
+    const used = await budgetUsedCents(getDb(), accountId, currentFiscalYear(account!));
     await getDb().update(accounts).set({ repairBudgetCents: used + 950_000 }).where(eq(accounts.id, accountId));
 
     const singles = lines.slice(0, 24).map((line, i) =>

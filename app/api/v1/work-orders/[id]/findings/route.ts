@@ -1,7 +1,7 @@
 import { createFinding } from "@/db/queries/finding-writes";
 import { findFinding, findingsForWorkOrder } from "@/db/queries/finding-reads";
-import { getShopSettings } from "@/db/queries/settings";
 import { CAN } from "@/lib/auth/policy";
+import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
 import { apiRoute, idParams } from "@/lib/http/api-route";
 import { notFound } from "@/lib/http/problem";
@@ -18,8 +18,7 @@ export const GET = apiRoute({ roles: CAN.anyone, params: idParams }, async ({ us
 
 /** A technician's finding: title, severity, note, photos already uploaded, typed readings, proposed lines. */
 export const POST = apiRoute({ roles: CAN.postFindings, params: idParams, body: findingInput }, async ({ user, params, body }) => {
-  const { timeZone } = await getShopSettings();
-  const created = await createFinding(user, params.id, body, calendarDate(new Date(), timeZone));
+  const created = await createFinding(user, params.id, body, calendarDate(new Date(), env().APP_TIME_ZONE));
   const finding = await findFinding(user, created.id);
   return Response.json({ ...finding, proposedLineIds: created.proposedLineIds }, { status: 201 });
 });
