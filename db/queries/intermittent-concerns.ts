@@ -1,5 +1,5 @@
 import { and, count, desc, eq, inArray, isNull, max, ne } from "drizzle-orm";
-import { getDb, writeTx } from "@/db/client";
+import { getDb, writeTx, type Tx } from "@/db/client";
 import { accounts, concerns, occurrences, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { nowIso } from "@/lib/ids";
@@ -38,20 +38,26 @@ export async function findConcern(user: SessionUser, concernId: string) {
 
 export type ConcernDetail = NonNullable<Awaited<ReturnType<typeof findConcern>>>;
 
+/** The concern, scoped to the caller's account (another account's is not found), refused once closed. */
+async function openConcernForWrite(tx: Tx, user: SessionUser, concernId: string, closedMessage: string) {
+  const [c] = await tx
+    .select({ id: concerns.id, unitId: concerns.unitId, accountId: units.accountId, closedAt: concerns.closedAt, intermittent: concerns.intermittent, cause: concerns.cause })
+    .from(concerns)
+    .innerJoin(units, eq(units.id, concerns.unitId))
+    .where(and(eq(concerns.id, concernId), scopedTo(units.accountId, user)))
+    .limit(1);
+  if (!c) throw notFound("That concern");
+  if (c.closedAt) throw conflict("concern_closed", closedMessage);
+  return c;
+}
+
 /**
  * Marks a concern intermittent with what the fleet should record. Entries the
  * fleet logged on the unit before any concern was open are attached to it.
  */
 export async function markIntermittent(user: SessionUser, concernId: string, recordHint: string) {
   return writeTx(async (tx) => {
-    const [c] = await tx
-      .select({ id: concerns.id, unitId: concerns.unitId, accountId: units.accountId, closedAt: concerns.closedAt, intermittent: concerns.intermittent })
-      .from(concerns)
-      .innerJoin(units, eq(units.id, concerns.unitId))
-      .where(and(eq(concerns.id, concernId), scopedTo(units.accountId, user)))
-      .limit(1);
-    if (!c) throw notFound("That concern");
-    if (c.closedAt) throw conflict("concern_closed", "That concern is closed; open a new one if the fault is back.");
+    const c = await openConcernForWrite(tx, user, concernId, "That concern is closed; open a new one if the fault is back.");
     await tx.update(concerns).set({ intermittent: true, recordHint, updatedAt: nowIso() }).where(eq(concerns.id, c.id));
     const adopted = c.intermittent
       ? []
@@ -74,14 +80,7 @@ export async function markIntermittent(user: SessionUser, concernId: string, rec
 /** Closes an intermittent concern with the cause found; the fleet sees the conclusion. */
 export async function closeConcern(user: SessionUser, concernId: string, conclusion: string) {
   return writeTx(async (tx) => {
-    const [c] = await tx
-      .select({ id: concerns.id, unitId: concerns.unitId, accountId: units.accountId, closedAt: concerns.closedAt, cause: concerns.cause })
-      .from(concerns)
-      .innerJoin(units, eq(units.id, concerns.unitId))
-      .where(and(eq(concerns.id, concernId), scopedTo(units.accountId, user)))
-      .limit(1);
-    if (!c) throw notFound("That concern");
-    if (c.closedAt) throw conflict("concern_closed", "That concern is already closed.");
+    const c = await openConcernForWrite(tx, user, concernId, "That concern is already closed.");
     const at = nowIso();
     await tx
       .update(concerns)
