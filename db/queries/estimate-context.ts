@@ -77,10 +77,10 @@ export function currentFiscalYear(account: Pick<Account, "fiscalYearStartMonth">
   return { fy, fromIso: startOfDayIso(fy.startDate, timeZone), toIso: startOfDayIso(addDays(fy.endDate, 1), timeZone) };
 }
 
-/** What the account has approved in the fiscal year, every work order (amounts at approval). */
+/** What the account has approved in the fiscal year, every work order (amounts at approval; credits make no room, see countedCents). */
 export async function budgetUsedCents(tx: Reader, accountId: string, bounds: { fromIso: string; toIso: string }): Promise<number> {
   const [row] = await tx
-    .select({ total: sql<number>`coalesce(sum(${estimateLines.approvedAmountCents}), 0)` })
+    .select({ total: sql<number>`coalesce(sum(max(${estimateLines.approvedAmountCents}, 0)), 0)` })
     .from(estimateLines)
     .innerJoin(workOrders, eq(workOrders.id, estimateLines.workOrderId))
     .where(

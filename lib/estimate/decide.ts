@@ -1,6 +1,6 @@
 import type { Cents } from "../money";
 import { runBatch, type BatchOk, type LineRefusal, type Outcome, type WithLine } from "./batch";
-import { checkBudget, checkSigningLimit, signingUsedCents } from "./limits";
+import { checkBudget, countedCents, checkSigningLimit, signingUsedCents } from "./limits";
 import type {
   AccountSettings,
   Caller,
@@ -74,8 +74,8 @@ export function decideLines(input: DecideInput): DecideResult {
         fiscalYearLabel: input.fiscalYear.label,
       });
       if (!budget.ok) return { ...budget, lineId: line.id };
-      signingUsed += amountCents;
-      budgetUsed += amountCents;
+      signingUsed += countedCents(amountCents);
+      budgetUsed += countedCents(amountCents);
       return { state: "approved", approvedByUserId: caller.id, byStanding: false, approvedAmountCents: amountCents, record };
     },
   });

@@ -34,10 +34,19 @@ export function approvedAmountOf(line: EstimateLine): Cents {
   return line.approvedAmountCents ?? lineAmountOf(line);
 }
 
+/**
+ * What an approved amount counts against a limit. A credit (negative line) is
+ * never refused, but it makes no room either: the shop may later revise or
+ * withdraw it, and approvals made in its room would then stand past the limit.
+ */
+export function countedCents(amountCents: Cents): Cents {
+  return Math.max(0, amountCents);
+}
+
 /** What the shop started by itself on this work order under the standing authorisation. */
 export function standingUsedCents(lines: readonly EstimateLine[]): Cents {
   let used = 0;
-  for (const line of lines) if (isApprovedState(line.state) && line.byStanding) used += approvedAmountOf(line);
+  for (const line of lines) if (isApprovedState(line.state) && line.byStanding) used += countedCents(approvedAmountOf(line));
   return used;
 }
 
@@ -46,19 +55,19 @@ export function signingUsedCents(lines: readonly EstimateLine[], userId: string)
   let used = 0;
   for (const line of lines) {
     if (isApprovedState(line.state) && !line.byStanding && line.approvedByUserId === userId) {
-      used += approvedAmountOf(line);
+      used += countedCents(approvedAmountOf(line));
     }
   }
   return used;
 }
 
-// A credit (zero or negative amount) lowers the total, so it is never refused.
+// A credit (zero or negative amount) is never refused (see countedCents).
 function exceeds(usedCents: Cents, newCents: Cents, limitCents: Cents): boolean {
   return newCents > 0 && usedCents + newCents > limitCents;
 }
 
 function within(usedCents: Cents, newCents: Cents, limitCents: Cents): LimitOk {
-  const afterCents = usedCents + newCents;
+  const afterCents = usedCents + countedCents(newCents);
   return { ok: true, newCents, usedCents, afterCents, limitCents, remainingCents: limitCents - afterCents };
 }
 

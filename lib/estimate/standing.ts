@@ -1,6 +1,6 @@
 import type { Cents } from "../money";
 import { runBatch, type BatchOk, type BatchStep, type LineRefusal, type Outcome, type WithLine } from "./batch";
-import { checkBudget, checkStandingAuthorisation, standingUsedCents } from "./limits";
+import { checkBudget, countedCents, checkStandingAuthorisation, standingUsedCents } from "./limits";
 import type { AccountSettings, EstimateLine, FiscalYear, LimitAmounts, Refusal, ShopSettings } from "./types";
 
 export interface StandingInput {
@@ -55,8 +55,8 @@ export function applyStandingAuthorisation(input: StandingInput): StandingResult
         fiscalYearLabel: input.fiscalYear.label,
       });
       if (!budget.ok) return { ...budget, lineId: line.id };
-      standingUsed += amountCents;
-      budgetUsed += amountCents;
+      standingUsed += countedCents(amountCents);
+      budgetUsed += countedCents(amountCents);
       return {
         state: "approved",
         approvedByUserId: null,

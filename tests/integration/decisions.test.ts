@@ -159,3 +159,21 @@ describe("POST /api/v1/work-orders/:id/decisions (all or none)", () => {
     expect(ok.body.totals.heldCents).toBe(188_000);
   });
 });
+
+describe("repair budget used (the count the decision path checks)", () => {
+  it("an approved credit makes no room in the budget", async () => {
+    // Credits count as zero against limits: the shop may withdraw one later
+    // (lib/estimate countedCents); the unit test shows the signing-limit side.
+    const wo = await workOrderByNumber(1042);
+    const remaining = async () =>
+      (await call<Detail>(getWorkOrder, { path: `/api/v1/work-orders/${wo.id}`, params: { id: wo.id }, as: SUPERVISOR })).body.limits.budgetRemainingCents;
+    const before = await remaining();
+    expect(typeof before).toBe("number");
+    const line = (await linesOf(wo.id)).find((l) => l.state === "proposed")!;
+    await getDb()
+      .update(estimateLines)
+      .set({ state: "approved", unitPriceCents: -50_000, approvedAmountCents: -50_000, byStanding: true, approvedAt: new Date().toISOString() })
+      .where(eq(estimateLines.id, line.id));
+    expect(await remaining()).toBe(before);
+  });
+});

@@ -136,6 +136,25 @@ describe("decideLines", () => {
     );
     expect(r).toMatchObject({ ok: false, code: "stale_version", lineId: p.id });
   });
+
+  it("a credit makes no room under a signing limit or the budget (it may be withdrawn later)", () => {
+    // Found by the property test (seed 302955271): an approver at $5,000.00
+    // approves a -$1,000.00 credit, then $5,500.00 of work; when the shop later
+    // revises the credit back to proposed, $5,500.00 stood against a $5,000.00 limit.
+    const credit = approvedLine("u-ann", { unitPriceCents: -100_000 });
+    const work = line({ unitPriceCents: 550_000 });
+    const r = decideLines(input([credit, work], [{ lineId: work.id, decision: "approve", expectedVersion: 1 }]));
+    expect(r).toMatchObject({ ok: false, code: "signing_limit_exceeded", amounts: { usedCents: 0, afterCents: 550_000 } });
+
+    // Nor inside one batch: the credit first, then work that fits only in its room.
+    const newCredit = line({ unitPriceCents: -100_000 });
+    const batch = [newCredit, work].map((l) => ({ lineId: l.id, decision: "approve" as const, expectedVersion: 1 }));
+    expect(decideLines(input([newCredit, work], batch))).toMatchObject({ ok: false, code: "signing_limit_exceeded" });
+    const big = { id: "u-ben", signingLimitCents: 10_000_000 };
+    // $49,600.00 used of $50,000.00: $400.00 left, and the credit adds none.
+    const budget = decideLines(input([newCredit, work], batch, { caller: big, budgetUsedCents: 4_960_000 }));
+    expect(budget).toMatchObject({ ok: false, code: "budget_exceeded", lineId: work.id });
+  });
 });
 
 describe("applyStandingAuthorisation", () => {
