@@ -1,4 +1,5 @@
-import { and, eq as eqSql, gte, inArray, sql } from "drizzle-orm";
+import { eq as eqSql } from "drizzle-orm";
+import { budgetUsedCents, currentFiscalYear } from "@/db/queries/estimate-context";
 import { accounts, decisions, estimateLines, timeEntries, workOrders } from "@/db/schema";
 import type { Decision, LineKind, LineState } from "@/lib/domain";
 import { lineAmountCents } from "@/lib/money";
@@ -177,18 +178,8 @@ async function insertLines(ctx: SeedContext, woKey: string, lines: LineSeed[]): 
  */
 async function tightenSchoolBudget(ctx: SeedContext): Promise<void> {
   const accountId = id(ctx, "account:schools");
-  const year = ctx.now.getUTCMonth() + 1 >= 7 ? ctx.now.getUTCFullYear() : ctx.now.getUTCFullYear() - 1;
-  const [row] = await ctx.db
-    .select({ used: sql<number>`coalesce(sum(${estimateLines.approvedAmountCents}), 0)` })
-    .from(estimateLines)
-    .innerJoin(workOrders, eqSql(workOrders.id, estimateLines.workOrderId))
-    .where(
-      and(
-        eqSql(workOrders.accountId, accountId),
-        inArray(estimateLines.state, ["approved", "in_progress", "done"]),
-        gte(estimateLines.approvedAt, `${year}-07-01`),
-      ),
-    );
-  const budget = Math.ceil((Number(row?.used ?? 0) + 110_000) / 50_000) * 50_000;
+  // The same count the decision path uses, so the refusal really shows.
+  const used = await budgetUsedCents(ctx.db, accountId, currentFiscalYear({ fiscalYearStartMonth: 7 }, ctx.now));
+  const budget = Math.ceil((used + 110_000) / 50_000) * 50_000;
   await ctx.db.update(accounts).set({ repairBudgetCents: budget }).where(eqSql(accounts.id, accountId));
 }
