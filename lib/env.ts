@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { isTimeZone } from "./format";
 
 /**
  * Environment, validated once. Every hosted service has a local fake in
@@ -24,7 +25,7 @@ const schema = z
     DATABASE_AUTH_TOKEN: z.string().optional(),
     NEXTAUTH_URL: z.url().default("http://localhost:3000"),
     NEXTAUTH_SECRET: z.string().min(32, "NEXTAUTH_SECRET must be at least 32 characters").optional(),
-    APP_TIME_ZONE: z.string().default("America/Chicago"),
+    APP_TIME_ZONE: z.string().refine(isTimeZone, "APP_TIME_ZONE must be an IANA zone such as America/Chicago").default("America/Chicago"),
 
     SMTP_URL: z.string().optional(),
     MAIL_FROM: z.string().default("Quarry Road Truck & Equipment <service@quarry-road.example>"),

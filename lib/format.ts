@@ -1,6 +1,20 @@
 /** Dates and times for people, in the shop's time zone. Pure: the clock is passed in. */
 
-export const DEFAULT_TIME_ZONE = "America/Chicago";
+/**
+ * The shop's zone (APP_TIME_ZONE). On the server it is read at start; in the
+ * browser next.config.ts inlines the value the app was built with.
+ */
+export const DEFAULT_TIME_ZONE = process.env.APP_TIME_ZONE || "America/Chicago";
+
+/** Whether Intl knows a zone name ("America/Chicago" yes, "Central" no). */
+export function isTimeZone(name: string): boolean {
+  try {
+    new Intl.DateTimeFormat("en-US", { timeZone: name });
+    return true;
+  } catch {
+    return false;
+  }
+}
 
 export function formatDate(iso: string | null | undefined, timeZone = DEFAULT_TIME_ZONE): string {
   if (!iso) return "—";

@@ -1,4 +1,4 @@
-import { describe, expect, it } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 import { addDays, daysBetween, startOfDayIso } from "@/lib/dates";
 
 // Offsets from the IANA time zone database via Intl (ECMA-402): US Central is
@@ -19,5 +19,36 @@ describe("calendar days in a time zone", () => {
     expect(addDays("2028-02-28", 1)).toBe("2028-02-29");
     expect(addDays("2026-12-31", 30)).toBe("2027-01-30");
     expect(daysBetween("2026-11-01", "2026-12-01")).toBe(30);
+  });
+});
+
+// The shop's zone reaches every on-screen date (server and browser) through
+// lib/format's default; zone offsets as above, from the IANA database via Intl.
+describe("the shop's time zone (APP_TIME_ZONE)", () => {
+  it("sets the default zone for on-screen times", async () => {
+    vi.resetModules();
+    vi.stubEnv("APP_TIME_ZONE", "America/New_York");
+    try {
+      const { formatDateTime, DEFAULT_TIME_ZONE } = await import("@/lib/format");
+      expect(DEFAULT_TIME_ZONE).toBe("America/New_York");
+      // 2026-12-01 15:30 UTC is 10:30 in New York (UTC−5 in winter), 9:30 in Chicago.
+      expect(formatDateTime("2026-12-01T15:30:00Z")).toBe("Dec 1, 10:30 AM");
+      expect(formatDateTime("2026-12-01T15:30:00Z", "America/Chicago")).toBe("Dec 1, 9:30 AM");
+    } finally {
+      vi.unstubAllEnvs();
+      vi.resetModules();
+    }
+  });
+
+  it("refuses a zone name Intl does not know, at start", async () => {
+    vi.resetModules();
+    vi.stubEnv("APP_TIME_ZONE", "Central");
+    try {
+      const { env } = await import("@/lib/env");
+      expect(() => env()).toThrow(/APP_TIME_ZONE must be an IANA zone/);
+    } finally {
+      vi.unstubAllEnvs();
+      vi.resetModules();
+    }
   });
 });
