@@ -4,6 +4,7 @@ import { photoUrls } from "@/db/queries/work-order-detail";
 import { CleanPhoto, UnreadablePhotoError, cleanPhoto } from "./clean-photo";
 import { jpegHasGps } from "./exif-gps";
 import { ACCEPTED_WORDS, PHOTO_MAX_BYTES, sniffPhotoKind } from "./photo-rules";
+import { sweepNowAndThen } from "./sweep-photos";
 import { utApi } from "./ut-api";
 
 /** What the upload route's middleware vouched for; it travels with the file through the upload service. */
@@ -63,6 +64,7 @@ export async function storeUploadedPhoto(meta: PhotoUploadMeta, file: UploadedFi
       width: clean.width,
       height: clean.height,
     });
+    sweepNowAndThen();
     return { ok: true, photoId, name, ...photoUrls(photoId), width: clean.width, height: clean.height };
   } catch (error) {
     console.error(`photo ${file.key} could not be processed`, error);
