@@ -15,6 +15,7 @@ import {
   type LineKind,
   type ShopSettings,
 } from "../../lib/estimate";
+import { summary } from "./stats";
 
 const LINES = 500;
 const WARMUP = 2_000;
@@ -91,17 +92,8 @@ for (let i = 0; i < ITERATIONS; i++) {
   const c = process.cpuUsage(c0);
   cpu.push((c.user + c.system) / 1000);
 }
-function percentile(sorted: number[], q: number): number {
-  return sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))] ?? Number.NaN;
-}
-function line(name: string, values: number[]): string {
-  const s = [...values].sort((a, b) => a - b);
-  const f = (q: number): string => percentile(s, q).toFixed(3);
-  return `  ${name}: median ${f(0.5)} ms   p90 ${f(0.9)} ms   p99 ${f(0.99)} ms   max ${f(1)} ms`;
-}
-
 console.log(`estimate bench: ${LINES}-line work order, ${ITERATIONS} iterations after ${WARMUP} warm-up`);
 console.log("  per work order: pricing + batch decision over all lines + limits (target < 1 ms)");
-console.log(line("wall", wall));
-console.log(line("cpu ", cpu));
+console.log(summary("wall", wall));
+console.log(summary("cpu ", cpu));
 if (sink === 0) console.log("unexpected zero totals");
