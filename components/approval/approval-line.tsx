@@ -43,7 +43,7 @@ export function ApprovalLine({
             {line.coreTotalCents ? (
               <>
                 {" "}
-                · core <Money cents={line.coreTotalCents} /> (refunded when returned)
+                · core <Money cents={line.coreTotalCents} /> {line.coreReturnedAt ? "(came back: credited)" : "(refunded when returned)"}
               </>
             ) : null}
           </p>

@@ -21,7 +21,8 @@ function toEstimateLine(l: LineView): EstimateLine {
     quantityMilli: Math.round(l.quantity * 1000),
     unitPriceCents: l.unitPriceCents,
     taxable: l.taxable,
-    coreChargeCents: l.coreChargeCents,
+    // As the server prices it (db/queries/estimate-context): a core that came back is credited.
+    coreChargeCents: l.coreReturnedAt ? 0 : l.coreChargeCents,
     state: l.state,
     version: l.version,
     approvedByUserId: null,

@@ -5,8 +5,9 @@ import { useTransition } from "react";
 import { Money } from "@/components/ui/money";
 import type { LineView } from "@/db/queries/work-order-view";
 import { LINE_KIND_LABELS } from "@/lib/domain";
-import { deleteLineAction, moveLineAction, startStandingAction } from "@/lib/actions/estimate";
-import { formatQuantity } from "@/lib/format";
+import { coreReturnedAction, deleteLineAction, moveLineAction, startStandingAction } from "@/lib/actions/estimate";
+import { isApprovedState } from "@/lib/estimate";
+import { formatDate, formatQuantity } from "@/lib/format";
 import { DecisionLine, LineStatePill } from "./line-state";
 
 const small = "min-h-9 rounded-card border border-rule-strong px-2 text-sm font-semibold hover:bg-paper-deep disabled:opacity-40";
@@ -50,8 +51,16 @@ export function LineRow({
         </p>
         {line.partNumber ? <p className="text-xs text-ink-faint">Part {line.partNumber}</p> : null}
         {line.coreChargeCents ? (
-          <p className="text-xs text-ink-faint">
-            Core charge <Money cents={line.coreTotalCents} /> (not taxed; credited when the core comes back)
+          <p className="text-xs text-ink-faint" data-testid="core-charge">
+            {line.coreReturnedAt ? (
+              <>
+                Core came back {formatDate(line.coreReturnedAt)}: <Money cents={line.coreTotalCents} /> credited
+              </>
+            ) : (
+              <>
+                Core charge <Money cents={line.coreTotalCents} /> (not taxed; credited when the core comes back)
+              </>
+            )}
           </p>
         ) : null}
         {line.reopenReason && line.state === "proposed" ? <p className="text-xs font-semibold text-rust-deep">Back for approval: {line.reopenReason}</p> : null}
@@ -90,6 +99,16 @@ export function LineRow({
           {canStartStanding && (line.state === "draft" || line.state === "proposed") ? (
             <button type="button" className={`${small} border-ink`} disabled={pending} onClick={() => run(() => startStandingAction({ workOrderId, lineIds: [line.id] }))}>
               Start now (standing authorisation)
+            </button>
+          ) : null}
+          {line.kind === "part" && line.coreChargeCents && isApprovedState(line.state) ? (
+            <button
+              type="button"
+              className={small}
+              disabled={pending}
+              onClick={() => run(() => coreReturnedAction({ lineId: line.id, workOrderId, returned: !line.coreReturnedAt }))}
+            >
+              {line.coreReturnedAt ? "Undo core return" : "Core came back"}
             </button>
           ) : null}
         </div>

@@ -16,7 +16,8 @@ export function toEstimateLine(row: LineRow): EstimateLine {
     quantityMilli: row.quantityMilli,
     unitPriceCents: row.unitPriceCents,
     taxable: row.taxable,
-    coreChargeCents: row.coreChargeCents,
+    // A core that came back is credited: it leaves the totals, as on the invoice.
+    coreChargeCents: row.coreReturnedAt ? 0 : row.coreChargeCents,
     state: row.state,
     version: row.version,
     approvedByUserId: row.approvedByUserId,

@@ -2,6 +2,7 @@ import { getDb } from "@/db/client";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { isStaff } from "@/lib/auth/policy";
 import { limitsView, priceEstimate } from "@/lib/estimate";
+import { lineAmountCents } from "@/lib/money";
 import { budgetUsedCents, currentFiscalYear, loadEstimateContext, toAccountSettings, toEstimateLine, toShopSettings } from "./estimate-context";
 import { findWorkOrder, loadConcerns, loadFindings, loadLatestDecisions, loadTimeline } from "./work-order-detail";
 
@@ -60,7 +61,9 @@ export async function workOrderView(user: SessionUser, id: string) {
         amountCents: amountOf.get(l.id)?.amountCents ?? 0,
         taxable: l.taxable,
         coreChargeCents: l.coreChargeCents,
-        coreTotalCents: amountOf.get(l.id)?.coreTotalCents ?? 0,
+        // What the core costs if it does not come back (shown even once it has).
+        coreTotalCents: lineAmountCents(l.quantityMilli, l.coreChargeCents),
+        coreReturnedAt: l.coreReturnedAt,
         state: l.state,
         version: l.version,
         findingId: l.findingId,

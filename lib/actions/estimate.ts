@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import { addLine, bringBackDeferred, deleteLine, editLine, moveLine, setLineProgress } from "@/db/queries/estimate-lines";
+import { setCoreReturned } from "@/db/queries/core-returns";
 import { sendEstimate, startUnderStanding } from "@/db/queries/estimate-send";
 import { workOrderView } from "@/db/queries/work-order-view";
 import { guardedAction } from "@/lib/auth/guarded-action";
@@ -90,5 +91,14 @@ export const lineProgressAction = guardedAction(
     await setLineProgress(user, input.lineId, input.state);
     refresh(input.workOrderId);
     return null;
+  },
+);
+
+export const coreReturnedAction = guardedAction(
+  { roles: CAN.writeEstimates, input: z.object({ lineId: id, workOrderId: id, returned: z.boolean() }) },
+  async ({ user, input }) => {
+    const result = await setCoreReturned(user, input.lineId, input.returned);
+    refresh(result.workOrderId);
+    return { changed: result.changed };
   },
 );

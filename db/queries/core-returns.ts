@@ -1,0 +1,64 @@
+import { and, eq, ne } from "drizzle-orm";
+import { writeTx } from "@/db/client";
+import { estimateLines, invoices, statusEvents } from "@/db/schema";
+import type { SessionUser } from "@/lib/auth/session-user";
+import { invoiceLabel, workOrderLabel } from "@/lib/domain";
+import { isApprovedState } from "@/lib/estimate";
+import { conflict } from "@/lib/http/problem";
+import { nowIso } from "@/lib/ids";
+import { formatCents, lineAmountCents } from "@/lib/money";
+import { recordAudit } from "./audit";
+import { loadLineContext } from "./estimate-lines";
+
+/**
+ * Records that a part's old core came back to the shop (or takes that back).
+ * A returned core leaves the estimate's totals and is not charged when the
+ * work order is invoiced. An issued invoice never changes, so while one is
+ * live the shop is told to void it first; the timeline tells the fleet.
+ */
+export async function setCoreReturned(user: SessionUser, lineId: string, returned: boolean) {
+  return writeTx(async (tx) => {
+    const { ctx, line } = await loadLineContext(tx, user, lineId);
+    if (line.kind !== "part" || line.coreChargeCents === 0) {
+      throw conflict("no_core_charge", `“${line.description}” has no core charge.`);
+    }
+    if (!isApprovedState(line.state)) {
+      throw conflict("not_approved", `“${line.description}” is not approved, so there is no core to credit yet.`);
+    }
+    if ((line.coreReturnedAt !== null) === returned) return { workOrderId: ctx.wo.id, changed: false };
+
+    const [live] = await tx
+      .select({ number: invoices.number })
+      .from(invoices)
+      .where(and(eq(invoices.workOrderId, ctx.wo.id), ne(invoices.status, "void")))
+      .limit(1);
+    if (live) {
+      throw conflict(
+        "already_invoiced",
+        `${workOrderLabel(ctx.wo.number)} is on ${invoiceLabel(live.number)}, and an issued invoice does not change. ` +
+          `Void ${invoiceLabel(live.number)} first (possible while nothing is paid on it), then record the core and issue the invoice again.`,
+      );
+    }
+
+    const at = nowIso();
+    const coreCents = lineAmountCents(line.quantityMilli, line.coreChargeCents);
+    await tx.update(estimateLines).set({ coreReturnedAt: returned ? at : null, updatedAt: at }).where(eq(estimateLines.id, line.id));
+    await tx.insert(statusEvents).values({
+      workOrderId: ctx.wo.id,
+      status: ctx.wo.status,
+      note: returned
+        ? `Core came back for “${line.description}”: ${formatCents(coreCents)} credited.`
+        : `Core return taken back for “${line.description}”: the ${formatCents(coreCents)} core charge applies again.`,
+      byUserId: user.id,
+      at,
+    });
+    await recordAudit(tx, user, {
+      action: returned ? "estimate.core_returned" : "estimate.core_return_undone",
+      entityType: "work_order",
+      entityId: ctx.wo.id,
+      accountId: ctx.account.id,
+      detail: { lineId: line.id, coreCents },
+    });
+    return { workOrderId: ctx.wo.id, changed: true };
+  });
+}
