@@ -2,8 +2,7 @@
 // handler and UTApi) against the local fake in mocks/uploadthing, then onto a finding, then back
 // out through the scoped photo routes. Sources: the SDK's protocol as the fake's own test names
 // it; PNG/JPEG signatures and the EXIF GPS pointer as in tests/unit/uploads/photo-rules.test.ts.
-import { mkdtemp, readFile, readdir, rm } from "node:fs/promises";
-import { tmpdir } from "node:os";
+import { readFile, readdir } from "node:fs/promises";
 import { join } from "node:path";
 import { eq } from "drizzle-orm";
 import sharp from "sharp";
@@ -17,37 +16,28 @@ import { photoRouter, type PhotoRouter } from "@/app/api/uploadthing/core";
 import { GET as utGet, POST as utPost } from "@/app/api/uploadthing/route";
 import { getDb } from "@/db/client";
 import { photos, workOrders } from "@/db/schema";
-import { resetEnvCache } from "@/lib/env";
 import { jpegHasGps } from "@/lib/uploads/exif-gps";
 import type { PhotoUploadResult } from "@/lib/uploads/store-photo";
-import { startFakeUploadThing, type FakeUploadThing } from "@/mocks/uploadthing/server";
 import { call, sessionCookie } from "./helpers/app";
+import { startUploadFake, type UploadFake } from "./helpers/fake-uploads";
 import { installNodeXhr } from "./helpers/node-xhr";
 import { serveFetchHandler } from "./helpers/serve-fetch-handler";
 
-let fake: FakeUploadThing;
+let uploads: UploadFake;
 let app: { url: string; close(): Promise<void> };
-let storage: string;
 let uninstallXhr = (): void => {};
 const TECH = "tech2@quarry-road.example";
 
 beforeAll(async () => {
-  storage = await mkdtemp(join(tmpdir(), "cotter-photos-"));
-  fake = await startFakeUploadThing({ port: 0, storageDir: storage, onWarning: () => undefined });
-  // No UPLOADTHING_TOKEN: the app derives the fake's token and address from this port alone.
-  delete process.env.UPLOADTHING_TOKEN;
-  process.env.FAKE_UPLOADTHING_PORT = new URL(fake.url).port;
-  resetEnvCache();
+  // No UPLOADTHING_TOKEN: the app derives the fake's token and address from its port alone.
+  uploads = await startUploadFake("cotter-photos");
   uninstallXhr = installNodeXhr();
   app = await serveFetchHandler((request) => (request.method === "GET" ? utGet(request) : utPost(request)));
 });
 
 afterAll(async () => {
   uninstallXhr();
-  delete process.env.FAKE_UPLOADTHING_PORT;
-  resetEnvCache();
-  await Promise.all([app?.close(), fake?.close()]);
-  await rm(storage, { recursive: true, force: true });
+  await Promise.all([app?.close(), uploads?.stop()]);
 });
 
 async function workOrder(number: number) {
@@ -92,7 +82,7 @@ describe("a technician's finding with two photos, through the upload SDK and the
     expect(ok).toHaveLength(2);
 
     // Only the clean copies (full + thumbnail) are left at the upload service: the originals are gone.
-    expect((await readdir(storage)).filter((f) => f.endsWith(".json"))).toHaveLength(4);
+    expect((await readdir(uploads.storage)).filter((f) => f.endsWith(".json"))).toHaveLength(4);
     const rows = await getDb().select().from(photos).where(eq(photos.workOrderId, wo.id));
     expect(rows.map((r) => r.findingId)).toEqual([null, null]);
 
@@ -170,10 +160,10 @@ describe("a technician's finding with two photos, through the upload SDK and the
 
   it("refuses a 20 MB file before anything is uploaded, with its size in the message", async () => {
     const wo = await workOrder(1044);
-    const before = (await readdir(storage)).length;
+    const before = (await readdir(uploads.storage)).length;
     const big = new File([new Uint8Array(20 * 1024 * 1024)], "whole-axle.jpg", { type: "image/jpeg" });
     await expect(upload([big], wo.id)).rejects.toMatchObject({ message: "whole-axle.jpg is 20.0 MB; a photo may be at most 8 MB." });
-    expect((await readdir(storage)).length).toBe(before);
+    expect((await readdir(uploads.storage)).length).toBe(before);
   });
 
   it("refuses a text file renamed .jpg by its contents, keeps nothing, and says why", async () => {
@@ -184,7 +174,7 @@ describe("a technician's finding with two photos, through the upload SDK and the
     expect(result?.serverData).toEqual({ ok: false, name: "notes.jpg", error: "notes.jpg is not a JPEG, PNG, WebP or HEIC photo, whatever its name says. It was not kept." });
     expect(await getDb().select().from(photos)).toHaveLength(before.length);
     // The upload service no longer holds it either.
-    expect((await fetch(`${fake.url}/f/${result?.key}`)).status).toBe(404);
+    expect((await fetch(`${uploads.fake.url}/f/${result?.key}`)).status).toBe(404);
   });
 
   it("refuses uploads from fleet people and for another account's work order (the middleware runs first)", async () => {

@@ -2,37 +2,21 @@
 // unsent) are deleted after a week, rows and stored files, through the real
 // UTApi against the local upload fake. The week is our own choice (common
 // practice for abandoned uploads); attached photos are never touched.
-import { mkdtemp, rm } from "node:fs/promises";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
 import { eq, isNotNull } from "drizzle-orm";
 import { UTFile } from "uploadthing/server";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db/client";
 import { photos, units } from "@/db/schema";
-import { resetEnvCache } from "@/lib/env";
 import { KEEP_UNATTACHED_MS, sweepUnattachedPhotos } from "@/lib/uploads/sweep-photos";
 import { utApi } from "@/lib/uploads/ut-api";
-import { startFakeUploadThing, type FakeUploadThing } from "@/mocks/uploadthing/server";
 import { userByEmail } from "./helpers/app";
+import { startUploadFake, type UploadFake } from "./helpers/fake-uploads";
 
-let fake: FakeUploadThing;
-let storage: string;
-
+let uploads: UploadFake;
 beforeAll(async () => {
-  storage = await mkdtemp(join(tmpdir(), "cotter-sweep-"));
-  fake = await startFakeUploadThing({ port: 0, storageDir: storage, onWarning: () => undefined });
-  delete process.env.UPLOADTHING_TOKEN;
-  process.env.FAKE_UPLOADTHING_PORT = new URL(fake.url).port;
-  resetEnvCache();
+  uploads = await startUploadFake("cotter-sweep");
 });
-
-afterAll(async () => {
-  delete process.env.FAKE_UPLOADTHING_PORT;
-  resetEnvCache();
-  await fake?.close();
-  await rm(storage, { recursive: true, force: true });
-});
+afterAll(() => uploads?.stop());
 
 async function storedKeys(): Promise<string[]> {
   const { files } = await utApi().listFiles({ limit: 500 });
