@@ -20,10 +20,13 @@ export function Timeline({ entries }: { entries: TimelineEntry[] }) {
           <span aria-hidden className="absolute top-2 -left-[1.4rem] size-3 rounded-full border-2 border-ink bg-paper-card" />
           <div className="flex flex-wrap items-center gap-2">
             <StatusPill status={e.status} size="sm" />
-            <time className="figures text-sm text-ink-faint" dateTime={e.at}>
-              {formatDateTime(e.at)}
-            </time>
-            {e.by ? <span className="text-sm text-ink-faint">· {e.by}</span> : null}
+            {/* Date and person wrap together, so a phone never shows a stray "· name" line. */}
+            <span className="text-sm text-ink-faint">
+              <time className="figures" dateTime={e.at}>
+                {formatDateTime(e.at)}
+              </time>
+              {e.by ? ` · ${e.by}` : null}
+            </span>
           </div>
           {e.note ? <p className="mt-1">{e.note}</p> : null}
         </li>

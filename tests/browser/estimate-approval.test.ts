@@ -74,6 +74,12 @@ describe("estimate → decisions, across the shop and the fleet", () => {
     expect(await line("Remanufactured starter").getAttribute("data-state")).toBe("proposed");
     expect(await supervisor.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
     await screenshot(supervisor, "approval-supervisor-phone");
+    // On the phone the decision log is a list that leads with decision and amount, not a wide table.
+    const phoneLog = supervisor.getByTestId("decision-log-list");
+    await phoneLog.scrollIntoViewIfNeeded();
+    expect(await phoneLog.isVisible()).toBe(true);
+    expect(await supervisor.getByTestId("decision-log").isVisible()).toBe(false);
+    for (const d of ["Approve", "Decline", "Hold for later"]) expect(await phoneLog.textContent()).toContain(d);
 
     // Back at the shop, the decisions are on the work order for the writer.
     await writer.goto(workOrderUrl);
