@@ -69,14 +69,19 @@ export function StatementView({ statement: s, hrefFor }: { statement: Statement;
         ) : (
           <ul className="divide-y divide-rule text-sm">
             {s.payments.map((p) => (
-              <li key={p.id} className="flex flex-wrap justify-between gap-2 py-1.5">
-                <span>
-                  {formatDate(p.receivedAt, s.timeZone)} · <Link href={hrefFor(p.invoiceId)}>{p.invoiceLabel}</Link> ·{" "}
+              <li key={p.id} className="py-1.5">
+                {/* Amount on the first line, always right-aligned, so a column of payments reads down. */}
+                <p className="flex justify-between gap-3">
+                  <span>
+                    {formatDate(p.receivedAt, s.timeZone)} · <Link href={hrefFor(p.invoiceId)}>{p.invoiceLabel}</Link>
+                  </span>
+                  <Money cents={p.amountCents} />
+                </p>
+                <p className="text-ink-soft">
                   {PAYMENT_METHOD_LABELS[p.method] ?? p.method}
                   {p.reference ? ` · ${p.reference}` : ""}
                   {p.status !== "applied" ? <span className="font-semibold text-rust-deep"> ({p.status === "held" ? "held for review" : "returned"})</span> : null}
-                </span>
-                <Money cents={p.amountCents} />
+                </p>
               </li>
             ))}
           </ul>
