@@ -394,6 +394,8 @@ export const invoices = sqliteTable(
     coreCents: integer("core_cents").notNull().default(0),
     totalCents: integer("total_cents").notNull(),
     paidCents: integer("paid_cents").notNull().default(0),
+    // Credit notes against this invoice; the invoice itself never changes.
+    creditedCents: integer("credited_cents").notNull().default(0),
     replacesInvoiceId: text("replaces_invoice_id"),
     voidedAt: text("voided_at"),
     voidedBy: text("voided_by").references(() => users.id),
@@ -408,6 +410,33 @@ export const invoices = sqliteTable(
     uniqueIndex("invoices_one_live_per_wo").on(t.workOrderId).where(sql`status <> 'void'`),
     index("invoices_account_status_idx").on(t.accountId, t.status),
     index("invoices_wo_idx").on(t.workOrderId),
+  ],
+);
+
+/**
+ * A credit note: a numbered document that lowers what is owed on an issued
+ * invoice (a core that came back, a price put right after money was paid).
+ * Never more than the open balance, so nothing becomes a refund here.
+ */
+export const creditNotes = sqliteTable(
+  "credit_notes",
+  {
+    id: id(),
+    number: integer("number").notNull(),
+    invoiceId: text("invoice_id").notNull().references(() => invoices.id),
+    accountId: text("account_id").notNull().references(() => accounts.id),
+    amountCents: integer("amount_cents").notNull(),
+    reason: text("reason").notNull(),
+    // The estimate line whose returned core this credits, when that is what it is for.
+    coreLineId: text("core_line_id").references(() => estimateLines.id),
+    issuedAt: text("issued_at").notNull(),
+    issuedBy: text("issued_by").references(() => users.id),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex("credit_notes_number_unique").on(t.number),
+    index("credit_notes_invoice_idx").on(t.invoiceId),
+    index("credit_notes_account_issued_idx").on(t.accountId, t.issuedAt),
   ],
 );
 

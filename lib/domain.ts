@@ -111,3 +111,7 @@ export function workOrderLabel(number: number): string {
 export function invoiceLabel(number: number): string {
   return `INV-${number}`;
 }
+
+export function creditNoteLabel(number: number): string {
+  return `CN-${number}`;
+}

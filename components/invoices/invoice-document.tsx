@@ -109,6 +109,7 @@ export function InvoiceDocument({ invoice: inv, timeZone }: { invoice: InvoiceDe
         {t.coreCents !== 0 ? <Row label="Core charges (untaxed)" cents={t.coreCents} /> : null}
         <Row label="Total" cents={inv.totalCents} strong />
         <Row label="Paid" cents={inv.paidCents} />
+        {inv.creditedCents !== 0 ? <Row label="Credited" cents={inv.creditedCents} /> : null}
         <Row label="Balance due" cents={inv.balanceCents} strong />
       </dl>
 
@@ -126,6 +127,25 @@ export function InvoiceDocument({ invoice: inv, timeZone }: { invoice: InvoiceDe
                   ) : null}
                 </span>
                 <Money cents={p.amountCents} className={p.applied ? "" : "line-through decoration-1"} />
+              </li>
+            ))}
+          </ul>
+        </section>
+      ) : null}
+
+      {inv.creditNotes.length > 0 ? (
+        <section className="mt-4 border-t border-rule pt-2" data-testid="credit-notes">
+          <h2 className="text-xs font-bold tracking-wide text-ink-faint uppercase">Credit notes</h2>
+          <ul className="divide-y divide-rule text-sm">
+            {inv.creditNotes.map((c) => (
+              <li key={c.id} className="py-1.5">
+                <p className="flex justify-between gap-3">
+                  <span className="font-semibold">
+                    {c.label} · {formatDate(c.issuedAt, timeZone)}
+                  </span>
+                  <Money cents={-c.amountCents} />
+                </p>
+                <p className="text-ink-soft">{c.reason}</p>
               </li>
             ))}
           </ul>

@@ -1,6 +1,6 @@
-import { and, eq, ne } from "drizzle-orm";
+import { and, eq, gt, ne } from "drizzle-orm";
 import { writeTx } from "@/db/client";
-import { estimateLines, invoices, statusEvents } from "@/db/schema";
+import { estimateLines, invoiceLines, invoices, statusEvents } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { invoiceLabel, workOrderLabel } from "@/lib/domain";
 import { isApprovedState } from "@/lib/estimate";
@@ -8,13 +8,15 @@ import { conflict } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
 import { formatCents, lineAmountCents } from "@/lib/money";
 import { recordAudit } from "./audit";
+import { creditInvoiceInTx } from "./credit-notes";
 import { loadLineContext } from "./estimate-lines";
 
 /**
  * Records that a part's old core came back to the shop (or takes that back).
  * A returned core leaves the estimate's totals and is not charged when the
- * work order is invoiced. An issued invoice never changes, so while one is
- * live the shop is told to void it first; the timeline tells the fleet.
+ * work order is invoiced. An issued invoice never changes: when it charged the
+ * core, a credit note for the core goes against it (up to what is still owed).
+ * The timeline tells the fleet.
  */
 export async function setCoreReturned(user: SessionUser, lineId: string, returned: boolean) {
   return writeTx(async (tx) => {
@@ -25,29 +27,49 @@ export async function setCoreReturned(user: SessionUser, lineId: string, returne
     if (!isApprovedState(line.state)) {
       throw conflict("not_approved", `“${line.description}” is not approved, so there is no core to credit yet.`);
     }
-    if ((line.coreReturnedAt !== null) === returned) return { workOrderId: ctx.wo.id, changed: false };
+    if ((line.coreReturnedAt !== null) === returned) return { workOrderId: ctx.wo.id, changed: false, creditNote: null };
 
     const [live] = await tx
-      .select({ number: invoices.number })
+      .select()
       .from(invoices)
       .where(and(eq(invoices.workOrderId, ctx.wo.id), ne(invoices.status, "void")))
       .limit(1);
+    const coreCents = lineAmountCents(line.quantityMilli, line.coreChargeCents);
+    let creditNote: { label: string } | null = null;
     if (live) {
-      throw conflict(
-        "already_invoiced",
-        `${workOrderLabel(ctx.wo.number)} is on ${invoiceLabel(live.number)}, and an issued invoice does not change. ` +
-          `Void ${invoiceLabel(live.number)} first (possible while nothing is paid on it), then record the core and issue the invoice again.`,
-      );
+      const [charged] = await tx
+        .select({ id: invoiceLines.id })
+        .from(invoiceLines)
+        .where(and(eq(invoiceLines.invoiceId, live.id), eq(invoiceLines.sourceLineId, line.id), gt(invoiceLines.coreChargeCents, 0)))
+        .limit(1);
+      // Only a core the issued invoice charged can be credited; anything else would mean changing the invoice.
+      if (!returned) {
+        throw conflict(
+          "already_invoiced",
+          `${workOrderLabel(ctx.wo.number)} is on ${invoiceLabel(live.number)}, and the core was not charged there or was credited against it; an issued invoice and its credit notes do not change.`,
+        );
+      }
+      if (!charged) {
+        throw conflict(
+          "already_invoiced",
+          `${workOrderLabel(ctx.wo.number)} is on ${invoiceLabel(live.number)}, and an issued invoice does not change. ` +
+            `Void ${invoiceLabel(live.number)} first (possible while nothing is paid on it), then record the core and issue the invoice again.`,
+        );
+      }
+      creditNote = await creditInvoiceInTx(tx, user, live, {
+        amountCents: coreCents,
+        reason: `Core returned: ${line.description}`,
+        coreLineId: line.id,
+      });
     }
 
     const at = nowIso();
-    const coreCents = lineAmountCents(line.quantityMilli, line.coreChargeCents);
     await tx.update(estimateLines).set({ coreReturnedAt: returned ? at : null, updatedAt: at }).where(eq(estimateLines.id, line.id));
     await tx.insert(statusEvents).values({
       workOrderId: ctx.wo.id,
       status: ctx.wo.status,
       note: returned
-        ? `Core came back for “${line.description}”: ${formatCents(coreCents)} credited.`
+        ? `Core came back for “${line.description}”: ${formatCents(coreCents)} credited${creditNote ? ` (${creditNote.label})` : ""}.`
         : `Core return taken back for “${line.description}”: the ${formatCents(coreCents)} core charge applies again.`,
       byUserId: user.id,
       at,
@@ -59,6 +81,6 @@ export async function setCoreReturned(user: SessionUser, lineId: string, returne
       accountId: ctx.account.id,
       detail: { lineId: line.id, coreCents },
     });
-    return { workOrderId: ctx.wo.id, changed: true };
+    return { workOrderId: ctx.wo.id, changed: true, creditNote: creditNote?.label ?? null };
   });
 }

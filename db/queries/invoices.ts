@@ -1,8 +1,8 @@
 import { and, asc, desc, eq, gt, lt, or, sql, type SQL } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { accounts, invoiceLines, invoices, payments, units, users, workOrders } from "@/db/schema";
+import { accounts, creditNotes, invoiceLines, invoices, payments, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { invoiceLabel, workOrderLabel, type InvoiceStatus } from "@/lib/domain";
+import { creditNoteLabel, invoiceLabel, workOrderLabel, type InvoiceStatus } from "@/lib/domain";
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
 import { invalidInput } from "@/lib/http/problem";
@@ -21,6 +21,7 @@ const listColumns = {
   dueOn: invoices.dueOn,
   totalCents: invoices.totalCents,
   paidCents: invoices.paidCents,
+  creditedCents: invoices.creditedCents,
   poNumber: invoices.poNumber,
   accountName: accounts.name,
   workOrderNumber: workOrders.number,
@@ -37,6 +38,7 @@ interface ListRow {
   dueOn: string;
   totalCents: number;
   paidCents: number;
+  creditedCents: number;
   poNumber: string | null;
   accountName: string;
   workOrderNumber: number;
@@ -61,6 +63,7 @@ function listItem(r: ListRow) {
     dueAt: r.dueOn,
     totalCents: r.totalCents,
     paidCents: r.paidCents,
+    creditedCents: r.creditedCents,
     balanceCents: balanceOf(r),
   };
 }
@@ -112,7 +115,7 @@ export async function openInvoices(accountId: string | null) {
   const rows = await listQuery(
     and(
       eq(invoices.status, "open"),
-      gt(sql`${invoices.totalCents} - ${invoices.paidCents}`, 0),
+      gt(sql`${invoices.totalCents} - ${invoices.paidCents} - ${invoices.creditedCents}`, 0),
       accountId ? eq(invoices.accountId, accountId) : undefined,
     ),
   ).orderBy(asc(invoices.dueOn));
@@ -131,7 +134,7 @@ export async function getInvoiceDetail(user: Pick<SessionUser, "role" | "account
     .limit(1);
   if (!inv) return null;
   const i = inv.invoice;
-  const [lineRows, paymentRows, related] = await Promise.all([
+  const [lineRows, paymentRows, related, creditRows] = await Promise.all([
     db.select().from(invoiceLines).where(eq(invoiceLines.invoiceId, i.id)).orderBy(asc(invoiceLines.position)),
     db
       .select({ payment: payments, recordedByName: users.name })
@@ -143,6 +146,7 @@ export async function getInvoiceDetail(user: Pick<SessionUser, "role" | "account
       .select({ id: invoices.id, number: invoices.number, replacesInvoiceId: invoices.replacesInvoiceId })
       .from(invoices)
       .where(or(eq(invoices.replacesInvoiceId, i.id), i.replacesInvoiceId ? eq(invoices.id, i.replacesInvoiceId) : undefined)),
+    db.select().from(creditNotes).where(eq(creditNotes.invoiceId, i.id)).orderBy(asc(creditNotes.number)),
   ]);
   const replacedBy = related.find((r) => r.replacesInvoiceId === i.id) ?? null;
   const replaces = related.find((r) => r.id === i.replacesInvoiceId) ?? null;
@@ -194,6 +198,7 @@ export async function getInvoiceDetail(user: Pick<SessionUser, "role" | "account
     },
     totalCents: i.totalCents,
     paidCents: i.paidCents,
+    creditedCents: i.creditedCents,
     balanceCents: balanceOf(i),
     payments: paymentRows.map(({ payment: p, recordedByName }) => ({
       id: p.id,
@@ -207,6 +212,13 @@ export async function getInvoiceDetail(user: Pick<SessionUser, "role" | "account
       flagReason: p.flagReason,
       resolution: p.resolution,
       recordedBy: recordedByName,
+    })),
+    creditNotes: creditRows.map((c) => ({
+      id: c.id,
+      label: creditNoteLabel(c.number),
+      amountCents: c.amountCents,
+      reason: c.reason,
+      issuedAt: c.issuedAt,
     })),
     voidedAt: i.voidedAt,
     voidReason: i.voidReason,

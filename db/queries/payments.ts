@@ -5,11 +5,12 @@ import type { SessionUser } from "@/lib/auth/session-user";
 import { invoiceLabel, type PaymentMethod } from "@/lib/domain";
 import { conflict, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
-import { afterPayment, manualPaymentProblem } from "@/lib/invoices/balance";
+import { afterPayment, balanceOf, manualPaymentProblem } from "@/lib/invoices/balance";
 import { recordAudit } from "./audit";
 import { scopedTo } from "./scope";
 
-async function invoiceFor(tx: Tx, user: SessionUser, invoiceId: string): Promise<Invoice> {
+/** The invoice, scoped to the user's account; another account's is not found. */
+export async function invoiceFor(tx: Tx, user: SessionUser, invoiceId: string): Promise<Invoice> {
   const [inv] = await tx
     .select()
     .from(invoices)
@@ -66,7 +67,7 @@ export async function recordManualPayment(user: SessionUser, invoiceId: string, 
       accountId: inv.accountId,
       detail: { paymentId: row.id, method: input.method, amountCents: input.amountCents, reference: input.reference },
     });
-    return { paymentId: row.id, invoiceId: inv.id, status: after.status, balanceCents: after.totalCents - after.paidCents };
+    return { paymentId: row.id, invoiceId: inv.id, status: after.status, balanceCents: balanceOf(after) };
   });
 }
 
@@ -83,6 +84,9 @@ export async function voidInvoice(user: SessionUser, invoiceId: string, reason: 
     const [paid] = await tx.select({ id: payments.id }).from(payments).where(eq(payments.invoiceId, inv.id)).limit(1);
     if (paid || inv.paidCents > 0) {
       throw conflict("has_payments", `${label} has payments recorded against it, so it cannot be voided.`);
+    }
+    if (inv.creditedCents > 0) {
+      throw conflict("has_credit_notes", `${label} has credit notes against it, so it cannot be voided; credit the rest instead.`);
     }
     const at = nowIso();
     await tx

@@ -1,14 +1,15 @@
-import { and, eq, gte, lt } from "drizzle-orm";
+import { and, eq, gte, lt, type SQL } from "drizzle-orm";
+import type { SQLiteColumn } from "drizzle-orm/sqlite-core";
 import { getDb } from "@/db/client";
-import { accounts, invoices, payments, units, workOrders } from "@/db/schema";
+import { accounts, creditNotes, invoices, payments, units, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { accountScope } from "@/lib/auth/policy";
-import { invoiceLabel, workOrderLabel } from "@/lib/domain";
+import { creditNoteLabel, invoiceLabel, workOrderLabel } from "@/lib/domain";
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
 import { balanceOf, paymentStateOf } from "@/lib/invoices/balance";
 import { addDays } from "@/lib/dates";
-import type { CsvInvoice, CsvPayment } from "@/lib/invoices/csv";
+import type { CsvCredit, CsvInvoice, CsvPayment } from "@/lib/invoices/csv";
 import { addAgeing, ageBalances, emptyAgeing, type Ageing } from "@/lib/receivables/ageing";
 import { openInvoices, paymentsOfAccount } from "./invoices";
 
@@ -23,6 +24,14 @@ async function readableAccount(user: Pick<SessionUser, "role" | "accountId">, ac
 function paymentStatus(p: { applied: boolean; resolution: string | null }): CsvPayment["status"] {
   if (p.applied) return "applied";
   return p.resolution === "returned" ? "returned" : "held";
+}
+
+/**
+ * Instants wide enough to hold calendar days from..to in any time zone (a day
+ * either side in UTC); the exact days are then chosen in the shop's zone.
+ */
+function roughly(column: SQLiteColumn, from: string, to: string): SQL | undefined {
+  return and(gte(column, `${addDays(from, -1)}T00:00:00.000Z`), lt(column, `${addDays(to, 2)}T00:00:00.000Z`));
 }
 
 /** Payments received on calendar days from..to (shop's time zone), both inclusive. */
@@ -125,7 +134,7 @@ export async function receivables(now = new Date()) {
   };
 }
 
-/** Rows of the CSV export: invoices issued and payments received from..to, both inclusive. */
+/** Rows of the CSV export: invoices issued, payments received and credit notes issued from..to, both inclusive. */
 export async function exportRows(user: Pick<SessionUser, "role" | "accountId">, accountId: string, from: string, to: string) {
   const account = await readableAccount(user, accountId);
   if (!account) return null;
@@ -136,11 +145,7 @@ export async function exportRows(user: Pick<SessionUser, "role" | "accountId">, 
     .innerJoin(workOrders, eq(workOrders.id, invoices.workOrderId))
     .innerJoin(units, eq(units.id, workOrders.unitId))
     .where(
-      and(
-        eq(invoices.accountId, accountId),
-        gte(invoices.issuedAt, `${addDays(from, -1)}T00:00:00.000Z`),
-        lt(invoices.issuedAt, `${addDays(to, 2)}T00:00:00.000Z`),
-      ),
+      and(eq(invoices.accountId, accountId), roughly(invoices.issuedAt, from, to)),
     );
   const csvInvoices: CsvInvoice[] = rows
     .map(({ invoice: i, workOrderNumber, unitNumber }) => ({
@@ -173,5 +178,26 @@ export async function exportRows(user: Pick<SessionUser, "role" | "accountId">, 
     reference: p.reference,
     amountCents: p.amountCents,
   }));
-  return { accountName: account.name, invoices: csvInvoices, payments: csvPayments };
+  const creditRows = await getDb()
+    .select({ credit: creditNotes, invoiceNumber: invoices.number, poNumber: invoices.poNumber, workOrderNumber: workOrders.number, unitNumber: units.unitNumber })
+    .from(creditNotes)
+    .innerJoin(invoices, eq(invoices.id, creditNotes.invoiceId))
+    .innerJoin(workOrders, eq(workOrders.id, invoices.workOrderId))
+    .innerJoin(units, eq(units.id, workOrders.unitId))
+    .where(
+      and(eq(creditNotes.accountId, accountId), roughly(creditNotes.issuedAt, from, to)),
+    );
+  const csvCredits: CsvCredit[] = creditRows
+    .map(({ credit: c, invoiceNumber, poNumber, workOrderNumber, unitNumber }) => ({
+      issuedOn: calendarDate(new Date(c.issuedAt), timeZone),
+      creditNote: creditNoteLabel(c.number),
+      invoice: invoiceLabel(invoiceNumber),
+      workOrder: workOrderLabel(workOrderNumber),
+      unit: unitNumber,
+      poNumber,
+      reason: c.reason,
+      amountCents: c.amountCents,
+    }))
+    .filter((c) => c.issuedOn >= from && c.issuedOn <= to);
+  return { accountName: account.name, invoices: csvInvoices, payments: csvPayments, credits: csvCredits };
 }

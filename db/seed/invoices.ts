@@ -143,7 +143,7 @@ async function seedPayments(ctx: SeedContext, invoiceId: string, plans: PaymentP
   if (!inv) throw new Error("seed: invoice vanished");
   const clerk = id(ctx, "user:clerk@brennan-twp.example");
   const writer = id(ctx, "user:writer@quarry-road.example");
-  let money = { status: inv.status, totalCents: inv.totalCents, paidCents: inv.paidCents };
+  let money = { status: inv.status, totalCents: inv.totalCents, paidCents: inv.paidCents, creditedCents: inv.creditedCents };
   for (const [i, p] of plans.entries()) {
     const balance = money.totalCents - money.paidCents;
     // Part payments are round dollar amounts; a mismatched card payment is the whole total paid again.

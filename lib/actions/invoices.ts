@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { redirect } from "next/navigation";
 import { issueInvoice, markLinesDone, setWorkOrderPoNumber } from "@/db/queries/invoice-issue";
+import { issueCreditNote } from "@/db/queries/credit-notes";
 import { recordManualPayment, resolveFlaggedPayment, voidInvoice } from "@/db/queries/payments";
 import { guardedAction } from "@/lib/auth/guarded-action";
 import { CAN } from "@/lib/auth/policy";
@@ -13,6 +14,7 @@ import { deliverLater } from "@/lib/mail/deliver";
 import { notifyInvoiceIssued, notifyPaymentReceived } from "@/lib/mail/invoice-notices";
 import { expireCheckoutSession } from "@/lib/payments/stripe";
 import {
+  creditNoteInput,
   issueInvoiceInput,
   markLinesDoneInput,
   recordPaymentInput,
@@ -63,6 +65,12 @@ export const recordPaymentAction = guardedAction({ roles: CAN.issueInvoices, inp
     note: input.note,
   });
   void deliverLater(() => notifyPaymentReceived(result.paymentId));
+  refreshInvoice(input.invoiceId);
+  return result;
+});
+
+export const creditNoteAction = guardedAction({ roles: CAN.issueInvoices, input: creditNoteInput }, async ({ user, input }) => {
+  const result = await issueCreditNote(user, input.invoiceId, { amountCents: input.amount, reason: input.reason });
   refreshInvoice(input.invoiceId);
   return result;
 });

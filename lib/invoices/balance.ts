@@ -16,22 +16,48 @@ export interface InvoiceMoney {
   status: InvoiceStatus;
   totalCents: Cents;
   paidCents: Cents;
+  /** Credit notes issued against the invoice. */
+  creditedCents: Cents;
 }
 
+/** What is still owed: total less payments and credit notes; nothing on a void invoice. */
 export function balanceOf(inv: InvoiceMoney): Cents {
-  return inv.status === "void" ? 0 : inv.totalCents - inv.paidCents;
+  return inv.status === "void" ? 0 : inv.totalCents - inv.paidCents - inv.creditedCents;
 }
 
 export function paymentStateOf(inv: InvoiceMoney): PaymentState {
   if (inv.status === "void") return "void";
-  if (inv.paidCents >= inv.totalCents) return "paid";
+  if (balanceOf(inv) <= 0) return "paid";
   return inv.paidCents > 0 ? "partly_paid" : "open";
 }
 
-/** The invoice after an applied payment: paid in full closes it. */
+function settled(inv: InvoiceMoney): InvoiceMoney {
+  return { ...inv, status: balanceOf({ ...inv, status: "open" }) <= 0 ? "paid" : "open" };
+}
+
+/** The invoice after an applied payment: nothing left owing closes it. */
 export function afterPayment(inv: InvoiceMoney, amountCents: Cents): InvoiceMoney {
-  const paidCents = inv.paidCents + amountCents;
-  return { ...inv, paidCents, status: paidCents >= inv.totalCents ? "paid" : "open" };
+  return settled({ ...inv, paidCents: inv.paidCents + amountCents });
+}
+
+/** The invoice after a credit note: like a payment, it can settle what is left. */
+export function afterCredit(inv: InvoiceMoney, amountCents: Cents): InvoiceMoney {
+  return settled({ ...inv, creditedCents: inv.creditedCents + amountCents });
+}
+
+/**
+ * A credit note lowers what is owed and never more: past the open balance it
+ * would be a refund, which is settled with the account outside Cotter.
+ */
+export function creditProblem(inv: InvoiceMoney, amountCents: Cents): string | null {
+  if (inv.status === "void") return "This invoice is void; a void invoice owes nothing to credit.";
+  if (amountCents <= 0) return "Enter a credit above zero.";
+  const balance = balanceOf(inv);
+  if (balance <= 0) return "This invoice is paid in full, so there is nothing left to credit; settle a refund with the account directly.";
+  if (amountCents > balance) {
+    return `A ${formatCents(amountCents)} credit is more than the open balance of ${formatCents(balance)}; a credit can only lower what is owed.`;
+  }
+  return null;
 }
 
 /** Due date: the issue date in the shop's time zone plus the account's payment terms. */

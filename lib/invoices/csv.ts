@@ -64,6 +64,18 @@ export interface CsvPayment {
   amountCents: Cents;
 }
 
+export interface CsvCredit {
+  issuedOn: string;
+  /** The credit note's number, e.g. CN-4. */
+  creditNote: string;
+  invoice: string;
+  workOrder: string;
+  unit: string;
+  poNumber: string | null;
+  reason: string;
+  amountCents: Cents;
+}
+
 /** 124050 → "1240.50"; −500 → "-5.00". */
 export function decimalDollars(cents: Cents): string {
   const sign = cents < 0 ? "-" : "";
@@ -132,11 +144,21 @@ function paymentRow(p: CsvPayment): Record<CsvColumn, string> {
   };
 }
 
-/** Invoices and payments in date order (an invoice before payments of the same day). */
-export function toCsv(invoices: readonly CsvInvoice[], payments: readonly CsvPayment[]): string {
+/** A credit note reads like a payment that moved no money: it lowers what the invoice owes. */
+function creditRow(c: CsvCredit): Record<CsvColumn, string> {
+  return {
+    ...paymentRow({ ...c, receivedOn: c.issuedOn, status: "applied", method: "credit_note", reference: "", amountCents: c.amountCents }),
+    record: "credit",
+    reference: csvField(`${c.creditNote}: ${c.reason}`, true),
+  };
+}
+
+/** Invoices, payments and credit notes in date order (an invoice before what follows it on the same day). */
+export function toCsv(invoices: readonly CsvInvoice[], payments: readonly CsvPayment[], credits: readonly CsvCredit[] = []): string {
   const rows = [
     ...invoices.map((i) => ({ date: i.issuedOn, order: 0, key: i.invoice, row: invoiceRow(i) })),
     ...payments.map((p) => ({ date: p.receivedOn, order: 1, key: p.invoice, row: paymentRow(p) })),
+    ...credits.map((c) => ({ date: c.issuedOn, order: 2, key: c.invoice, row: creditRow(c) })),
   ].sort((a, b) => a.date.localeCompare(b.date) || a.order - b.order || a.key.localeCompare(b.key));
   const lines = [CSV_COLUMNS.join(","), ...rows.map((r) => CSV_COLUMNS.map((c) => r.row[c]).join(","))];
   return `${lines.join("\r\n")}\r\n`;

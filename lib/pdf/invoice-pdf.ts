@@ -32,8 +32,10 @@ export interface InvoiceDocument {
     totalCents: number;
   };
   paidCents: number;
+  creditedCents: number;
   balanceCents: number;
   payments: { receivedAt: string; method: string; reference: string; amountCents: number; applied: boolean; resolution: string | null }[];
+  creditNotes: { label: string; issuedAt: string; reason: string; amountCents: number }[];
   voidReason: string | null;
 }
 
@@ -155,6 +157,7 @@ export function renderInvoicePdf(inv: InvoiceDocument, timeZone: string): Promis
     ["Core charges (untaxed)", t.coreCents, false],
     ["Total", t.totalCents, true],
     ["Paid", inv.paidCents, false],
+    ["Credited", inv.creditedCents, false],
     ["Balance due", inv.balanceCents, true],
   ];
   const rows = totals.filter(([label, cents]) => cents !== 0 || ["Total", "Balance due", "Paid"].includes(label) || label.startsWith("Tax"));
@@ -171,23 +174,34 @@ export function renderInvoicePdf(inv: InvoiceDocument, timeZone: string): Promis
     y += strong ? 16 : 13;
   }
 
-  // Payments.
-  if (inv.payments.length > 0) {
+  // Payments, then credit notes (separate numbered documents that lower what is owed).
+  const section = (title: string, rows: [text: string, cents: number][]) => {
+    if (rows.length === 0) return;
     y += 10;
-    if (y + 20 + inv.payments.length * 13 > BOTTOM) {
+    if (y + 20 + rows.length * 13 > BOTTOM) {
       doc.addPage();
       y = 50;
     }
-    doc.font("Helvetica-Bold").fontSize(9).fillColor(FAINT).text("PAYMENTS", LEFT, y);
+    doc.font("Helvetica-Bold").fontSize(9).fillColor(FAINT).text(title, LEFT, y);
     y += 14;
     doc.font("Helvetica").fillColor(INK);
-    for (const p of inv.payments) {
-      const held = !p.applied ? (p.resolution === "returned" ? " (returned to the payer)" : " (held for review)") : "";
-      doc.text(`${formatDate(p.receivedAt, timeZone)}  ${PAYMENT_METHOD_LABELS[p.method] ?? p.method}  ${p.reference}${held}`, LEFT, y, { width: 400 });
-      doc.text(money(p.amountCents), 480, y, { width: RIGHT - 480, align: "right" });
+    for (const [text, cents] of rows) {
+      doc.text(text, LEFT, y, { width: 400 });
+      doc.text(money(cents), 480, y, { width: RIGHT - 480, align: "right" });
       y += 13;
     }
-  }
+  };
+  section(
+    "PAYMENTS",
+    inv.payments.map((p) => {
+      const held = !p.applied ? (p.resolution === "returned" ? " (returned to the payer)" : " (held for review)") : "";
+      return [`${formatDate(p.receivedAt, timeZone)}  ${PAYMENT_METHOD_LABELS[p.method] ?? p.method}  ${p.reference}${held}`, p.amountCents];
+    }),
+  );
+  section(
+    "CREDIT NOTES",
+    inv.creditNotes.map((c) => [`${c.label}  ${formatDate(c.issuedAt, timeZone)}  ${c.reason}`, -c.amountCents]),
+  );
 
   // Terms and footer.
   y += 14;

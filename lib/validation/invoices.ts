@@ -48,6 +48,12 @@ export const voidInvoiceInput = z.object({
   reason: z.string().trim().min(3, "Say why the invoice is void.").max(500),
 });
 
+export const creditNoteInput = z.object({
+  invoiceId: id,
+  amount: dollars,
+  reason: z.string().trim().min(3, "Say what the credit is for.").max(300),
+});
+
 export const resolvePaymentInput = z.object({ paymentId: id, resolution: z.enum(["applied", "returned"]) });
 
 /** ?from=&to= calendar dates, both optional, from not after to. */

@@ -1,7 +1,8 @@
 // A part's old core coming back (product.md, computation rules: "Core charges
 // are shown apart, not taxed, and credited when the core is returned"). The
-// core leaves the totals and the invoice; an issued invoice never changes.
-import { and, eq, gt, ne } from "drizzle-orm";
+// core leaves the totals and the invoice; an issued invoice never changes
+// (a credit note goes against it instead).
+import { and, eq, gt, isNull } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { setCoreReturned } from "@/db/queries/core-returns";
 import { decide } from "@/db/queries/decisions";
@@ -24,7 +25,7 @@ describe("a core comes back", () => {
     const before = (await workOrderView(await supervisor(), wo.id))!;
     expect(before.estimateTotals.coreCents).toBeGreaterThanOrEqual(2_500);
 
-    expect(await setCoreReturned(await writer(), drag.id, true)).toEqual({ workOrderId: wo.id, changed: true });
+    expect(await setCoreReturned(await writer(), drag.id, true)).toEqual({ workOrderId: wo.id, changed: true, creditNote: null });
     const after = (await workOrderView(await supervisor(), wo.id))!;
     // The approved cores drop by exactly the $25.00 core; the line still shows what the core was.
     expect(before.estimateTotals.coreCents - after.estimateTotals.coreCents).toBe(2_500);
@@ -46,18 +47,19 @@ describe("a core comes back", () => {
     await expect(setCoreReturned(await sessionUser("transport@alder-falls-schools.example"), drag.id, true)).rejects.toMatchObject({ status: 404 });
   });
 
-  it("leaves an issued invoice alone and says to void it first", async () => {
+  it("on an invoice paid in full, leaves everything as it was and says why (a refund is settled outside)", async () => {
+    // Credits on an open invoice: tests/integration/credit-notes.test.ts.
     const [row] = await getDb()
       .select({ lineId: estimateLines.id, number: invoices.number })
       .from(estimateLines)
       .innerJoin(invoices, eq(invoices.workOrderId, estimateLines.workOrderId))
-      .where(and(gt(estimateLines.coreChargeCents, 0), ne(invoices.status, "void")))
+      .where(and(gt(estimateLines.coreChargeCents, 0), isNull(estimateLines.coreReturnedAt), eq(invoices.status, "paid")))
       .limit(1);
     expect(row).toBeDefined();
     const untouched = await getDb().select().from(estimateLines).where(eq(estimateLines.id, row!.lineId));
-    const error = await setCoreReturned(await writer(), row!.lineId, untouched[0]!.coreReturnedAt === null).catch((e: unknown) => e);
-    expect(error).toMatchObject({ status: 409, code: "already_invoiced" });
-    expect(String((error as Error).message)).toContain(`INV-${row!.number}`);
+    const error = await setCoreReturned(await writer(), row!.lineId, true).catch((e: unknown) => e);
+    expect(error).toMatchObject({ status: 409, code: "credit_refused" });
+    expect(String((error as Error).message)).toMatch(/paid in full/);
     expect(await getDb().select().from(estimateLines).where(eq(estimateLines.id, row!.lineId))).toEqual(untouched);
   });
 });

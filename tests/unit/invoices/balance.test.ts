@@ -1,10 +1,10 @@
 import { describe, expect, it } from "vitest";
-import { afterPayment, balanceOf, dueDateOf, judgeOnlinePayment, manualPaymentProblem, paymentStateOf } from "@/lib/invoices/balance";
+import { afterCredit, afterPayment, balanceOf, creditProblem, dueDateOf, judgeOnlinePayment, manualPaymentProblem, paymentStateOf } from "@/lib/invoices/balance";
 
 // Invoice status rules from the issue text (open, partly paid, paid, void);
 // due date = issue date + payment terms ("net 30", common practice).
 describe("balance and status follow the payments", () => {
-  const inv = { status: "open" as const, totalCents: 100_000, paidCents: 0 };
+  const inv = { status: "open" as const, totalCents: 100_000, paidCents: 0, creditedCents: 0 };
 
   it("part payments add up to paid", () => {
     const a = afterPayment(inv, 25_000);
@@ -28,7 +28,7 @@ describe("balance and status follow the payments", () => {
 });
 
 describe("online payments must match the open balance", () => {
-  const inv = { status: "open" as const, totalCents: 50_000, paidCents: 10_000 };
+  const inv = { status: "open" as const, totalCents: 50_000, paidCents: 10_000, creditedCents: 0 };
   it("exactly the balance is applied", () => {
     expect(judgeOnlinePayment(inv, 40_000)).toEqual({ apply: true });
   });
@@ -43,7 +43,7 @@ describe("online payments must match the open balance", () => {
 });
 
 describe("payments the shop records by hand", () => {
-  const inv = { status: "open" as const, totalCents: 50_000, paidCents: 0 };
+  const inv = { status: "open" as const, totalCents: 50_000, paidCents: 0, creditedCents: 0 };
   it("any amount up to the balance is fine", () => {
     expect(manualPaymentProblem(inv, 1)).toBeNull();
     expect(manualPaymentProblem(inv, 50_000)).toBeNull();
@@ -52,5 +52,34 @@ describe("payments the shop records by hand", () => {
     expect(manualPaymentProblem(inv, 0)).toMatch(/above zero/);
     expect(manualPaymentProblem(inv, 50_001)).toBe("$500.01 is more than the open balance of $500.00.");
     expect(manualPaymentProblem({ ...inv, status: "void" }, 100)).toMatch(/void/);
+  });
+});
+
+// A credit note lowers what is owed, never past it (a refund is settled outside
+// the app): the open balance is total − payments − credits (common practice).
+describe("credit notes", () => {
+  const inv = { status: "open" as const, totalCents: 100_000, paidCents: 60_000, creditedCents: 0 };
+
+  it("lower the balance and can settle an invoice together with payments", () => {
+    // $1,000.00 − $600.00 paid − $150.00 credited = $250.00 owed.
+    const a = afterCredit(inv, 15_000);
+    expect([a.status, paymentStateOf(a), balanceOf(a)]).toEqual(["open", "partly_paid", 25_000]);
+    const b = afterPayment(a, 25_000);
+    expect([b.status, paymentStateOf(b), balanceOf(b)]).toEqual(["paid", "paid", 0]);
+    // A credit for the whole remainder settles it too.
+    expect(afterCredit(inv, 40_000)).toMatchObject({ status: "paid", creditedCents: 40_000 });
+  });
+
+  it("are refused above the open balance, at zero, on a paid or a void invoice", () => {
+    expect(creditProblem(inv, 40_000)).toBeNull();
+    expect(creditProblem(inv, 40_001)).toBe("A $400.01 credit is more than the open balance of $400.00; a credit can only lower what is owed.");
+    expect(creditProblem(inv, 0)).toBe("Enter a credit above zero.");
+    expect(creditProblem({ ...inv, paidCents: 100_000, status: "paid" }, 100)).toMatch(/paid in full/);
+    expect(creditProblem({ ...inv, status: "void" }, 100)).toMatch(/void/);
+  });
+
+  it("count in what an online payment must match", () => {
+    expect(judgeOnlinePayment({ ...inv, creditedCents: 15_000 }, 25_000)).toEqual({ apply: true });
+    expect(manualPaymentProblem({ ...inv, creditedCents: 15_000 }, 25_001)).toBe("$250.01 is more than the open balance of $250.00.");
   });
 });

@@ -63,4 +63,15 @@ describe("CSV export", () => {
     expect(lines).toHaveLength(4);
     expect(lines.every((l) => l === "" || l.split(",").length === CSV_COLUMNS.length)).toBe(true);
   });
+
+  it("writes a credit note as a credit row after the invoice it credits", () => {
+    const invoice = { issuedOn: "2026-02-01", invoice: "INV-5001", workOrder: "W-1042", unit: "T-14", poNumber: null, state: "open" as const, dueOn: "2026-03-03",
+      laborCents: 0, partsCents: 41_290, subletCents: 0, feesCents: 0, shopSuppliesCents: 0, taxCents: 0, coreCents: 2_500, totalCents: 43_790, balanceCents: 41_290 };
+    const credit = { issuedOn: "2026-02-01", creditNote: "CN-1", invoice: "INV-5001", workOrder: "W-1042", unit: "T-14", poNumber: null,
+      reason: "Core returned: Drag link, adjustable", amountCents: 2_500 };
+    const lines = toCsv([invoice], [], [credit]).split("\r\n");
+    expect(lines[1]?.startsWith("invoice,")).toBe(true);
+    // The reason holds a comma, so the field is quoted (RFC 4180).
+    expect(lines[2]).toBe('credit,2026-02-01,INV-5001,W-1042,T-14,,applied,,,,,,,,,,credit_note,"CN-1: Core returned: Drag link, adjustable",25.00,');
+  });
 });

@@ -44,8 +44,11 @@ const invoice: InvoiceDocument = {
   ],
   totals: { laborCents: 32_775, partsCents: 19_300, subletCents: 0, feesCents: 0, shopSuppliesCents: 2_622, taxCents: 0, coreCents: 3_000, totalCents: 57_697 },
   paidCents: 20_000,
-  balanceCents: 37_697,
+  // One of the two cores came back after the invoice went out: $576.97 − $200.00 − $15.00 = $361.97.
+  creditedCents: 1_500,
+  balanceCents: 36_197,
   payments: [{ receivedAt: "2026-03-10T17:00:00.000Z", method: "cheque", reference: "20417", amountCents: 20_000, applied: true, resolution: null }],
+  creditNotes: [{ label: "CN-3", issuedAt: "2026-03-12T17:00:00.000Z", reason: "Core returned: Brake chamber", amountCents: 1_500 }],
   voidReason: null,
 };
 
@@ -74,7 +77,10 @@ describe("the invoice PDF (issue: shop and account details, PO, lines, totals, t
       "Core charges (untaxed)",
       "$30.00",
       "$576.97",
-      "$376.97",
+      "$361.97",
+      "Credited",
+      "CN-3  Mar 12, 2026  Core returned: Brake chamber",
+      "-$15.00",
       "Cheque  20417",
       "Partly paid",
       "VIN 0CTDT4517EA108130",

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { forbidden, notFound } from "next/navigation";
+import { CreditNoteForm } from "@/components/invoices/credit-note-form";
 import { HeldPaymentActions } from "@/components/invoices/held-payment-actions";
 import { InvoiceDocument } from "@/components/invoices/invoice-document";
 import { PrintButton } from "@/components/invoices/print-button";
@@ -71,10 +72,16 @@ export default async function ShopInvoicePage({ params }: { params: Promise<{ id
             <RecordPaymentForm invoiceId={inv.id} balanceCents={inv.balanceCents} today={calendarDate(new Date(), timeZone)} />
           </Card>
         ) : null}
-        {inv.status === "open" && inv.payments.length === 0 ? (
+        {inv.status === "open" && inv.payments.length === 0 && inv.creditNotes.length === 0 ? (
           <Card>
             <CardTitle>Correct it</CardTitle>
             <VoidInvoiceForm invoiceId={inv.id} label={inv.label} />
+          </Card>
+        ) : null}
+        {open ? (
+          <Card>
+            <CardTitle>Credit part of it</CardTitle>
+            <CreditNoteForm invoiceId={inv.id} balanceCents={inv.balanceCents} />
           </Card>
         ) : null}
       </aside>

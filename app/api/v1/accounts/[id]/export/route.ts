@@ -11,7 +11,7 @@ export const dynamic = "force-dynamic";
 export const GET = apiRoute({ roles: CAN.readStatement, params: idParams, query: exportQuery }, async ({ user, params, query }) => {
   const rows = await exportRows(user, params.id, query.from, query.to);
   if (!rows) throw notFound("That account");
-  return new Response(toCsv(rows.invoices, rows.payments), {
+  return new Response(toCsv(rows.invoices, rows.payments, rows.credits), {
     headers: {
       "content-type": "text/csv; charset=utf-8",
       "content-disposition": `attachment; filename="invoices-payments-${query.from}-to-${query.to}.csv"`,
