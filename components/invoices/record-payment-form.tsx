@@ -12,6 +12,13 @@ type State = ActionResult<{ balanceCents: number; status: string }> | null;
 /** A cheque, transfer or cash payment, whole or in part. */
 export function RecordPaymentForm({ invoiceId, balanceCents, today }: { invoiceId: string; balanceCents: number; today: string }) {
   const [method, setMethod] = useState("cheque");
+  // The amount offered follows the balance after a payment or a credit (React's "adjust state when a prop changes").
+  const [offeredFor, setOfferedFor] = useState(balanceCents);
+  const [amount, setAmount] = useState(decimalDollars(balanceCents));
+  if (offeredFor !== balanceCents) {
+    setOfferedFor(balanceCents);
+    setAmount(decimalDollars(balanceCents));
+  }
   const [state, formAction, pending] = useActionState<State, FormData>((_prev, form) => recordPaymentAction(form), null);
   const errors = state && !state.ok ? state.fieldErrors : undefined;
   return (
@@ -26,7 +33,7 @@ export function RecordPaymentForm({ invoiceId, balanceCents, today }: { invoiceI
         </select>
       </label>
       <div className="grid gap-3">
-        <Field label="Amount ($)" name="amount" inputMode="decimal" required defaultValue={decimalDollars(balanceCents)} error={errors?.amount} />
+        <Field label="Amount ($)" name="amount" inputMode="decimal" required value={amount} onChange={(e) => setAmount(e.target.value)} error={errors?.amount} />
         <Field label="Received on" name="receivedOn" type="date" required defaultValue={today} max={today} error={errors?.receivedOn} />
       </div>
       <Field

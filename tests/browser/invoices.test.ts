@@ -155,4 +155,38 @@ describe("invoices and card payment, in Chromium", () => {
     await screenshot(clerk, "fleet-invoices-clerk-phone");
     await fleet.close();
   });
+
+  it("the writer credits part of an open invoice; the school district's approver sees the credit note on a phone", async () => {
+    const shop = await newContext(browser, DESKTOP);
+    const page = await shop.newPage();
+    await signIn(page, "writer@quarry-road.example");
+    await page.goto("/invoices?state=open");
+    await page.getByTestId("invoice-row").filter({ visible: true, hasText: "Alder Falls" }).first().getByRole("link").first().click();
+    const form = page.getByTestId("credit-note");
+    await form.getByLabel("Credit ($)").fill("25.00");
+    await form.getByLabel("What it is for").fill("Goodwill: brake recheck at no charge");
+    await form.getByRole("button", { name: "Issue credit note" }).click();
+    expect(await form.getByRole("status").textContent()).toMatch(/^CN-\d+ issued\.$/);
+    const credits = page.getByTestId("credit-notes");
+    await credits.waitFor();
+    expect(await credits.innerText()).toContain("Goodwill: brake recheck at no charge");
+    expect(await page.getByTestId("invoice-totals").innerText()).toContain("Credited");
+    // The payment form now offers the lower balance.
+    const balance = (await page.getByTestId("invoice-totals").locator("dd").last().textContent())!.replace(/[$,]/g, "");
+    await expect.poll(() => page.getByTestId("record-payment").getByLabel("Amount ($)").inputValue()).toBe(balance);
+    await screenshot(page, "shop-invoice-credit-desktop");
+    const invoicePath = new URL(page.url()).pathname;
+    await shop.close();
+
+    const fleet = await newContext(browser, PHONE);
+    const approver = await fleet.newPage();
+    await signIn(approver, "transport@alder-falls-schools.example");
+    await approver.goto(`/fleet${invoicePath}`);
+    await approver.getByTestId("credit-notes").waitFor();
+    expect(await approver.getByTestId("credit-notes").innerText()).toContain("$25.00");
+    expect(await approver.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+    await screenshot(approver, "fleet-invoice-credit-phone");
+    await fleet.close();
+  });
 });
+
