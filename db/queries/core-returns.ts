@@ -35,7 +35,7 @@ export async function setCoreReturned(user: SessionUser, lineId: string, returne
       .where(and(eq(invoices.workOrderId, ctx.wo.id), ne(invoices.status, "void")))
       .limit(1);
     const coreCents = lineAmountCents(line.quantityMilli, line.coreChargeCents);
-    let creditNote: { label: string } | null = null;
+    let creditNote: { id: string; label: string } | null = null;
     if (live) {
       const [charged] = await tx
         .select({ id: invoiceLines.id })
@@ -81,6 +81,6 @@ export async function setCoreReturned(user: SessionUser, lineId: string, returne
       accountId: ctx.account.id,
       detail: { lineId: line.id, coreCents },
     });
-    return { workOrderId: ctx.wo.id, changed: true, creditNote: creditNote?.label ?? null };
+    return { workOrderId: ctx.wo.id, changed: true, creditNote };
   });
 }

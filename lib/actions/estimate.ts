@@ -9,6 +9,7 @@ import { workOrderView } from "@/db/queries/work-order-view";
 import { guardedAction } from "@/lib/auth/guarded-action";
 import { CAN } from "@/lib/auth/policy";
 import { deliverLater } from "@/lib/mail/deliver";
+import { notifyCreditNote } from "@/lib/mail/invoice-notices";
 import { notifyEstimateReady, notifyLineReopened } from "@/lib/notifications/estimate";
 import { editLineInput, lineRefInput, newLineInput } from "@/lib/validation/estimate-line";
 import { lineAmountCents } from "@/lib/money";
@@ -98,7 +99,8 @@ export const coreReturnedAction = guardedAction(
   { roles: CAN.writeEstimates, input: z.object({ lineId: id, workOrderId: id, returned: z.boolean() }) },
   async ({ user, input }) => {
     const result = await setCoreReturned(user, input.lineId, input.returned);
+    if (result.creditNote) void deliverLater(() => notifyCreditNote(result.creditNote!.id));
     refresh(result.workOrderId);
-    return { changed: result.changed };
+    return { changed: result.changed, creditNote: result.creditNote?.label ?? null };
   },
 );

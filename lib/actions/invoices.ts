@@ -11,7 +11,7 @@ import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
 import { localMiddayIso } from "@/lib/dates";
 import { deliverLater } from "@/lib/mail/deliver";
-import { notifyInvoiceIssued, notifyPaymentReceived } from "@/lib/mail/invoice-notices";
+import { notifyCreditNote, notifyInvoiceIssued, notifyPaymentReceived } from "@/lib/mail/invoice-notices";
 import { expireCheckoutSession } from "@/lib/payments/stripe";
 import {
   creditNoteInput,
@@ -71,6 +71,7 @@ export const recordPaymentAction = guardedAction({ roles: CAN.issueInvoices, inp
 
 export const creditNoteAction = guardedAction({ roles: CAN.issueInvoices, input: creditNoteInput }, async ({ user, input }) => {
   const result = await issueCreditNote(user, input.invoiceId, { amountCents: input.amount, reason: input.reason });
+  void deliverLater(() => notifyCreditNote(result.id));
   refreshInvoice(input.invoiceId);
   return result;
 });

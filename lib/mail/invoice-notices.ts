@@ -2,9 +2,11 @@ import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { getInvoiceDetail } from "@/db/queries/invoices";
 import { accountRecipients, shopRecipients, userEmail } from "@/db/queries/recipients";
-import { accounts, payments } from "@/db/schema";
+import { accounts, creditNotes, payments } from "@/db/schema";
+import { creditNoteLabel } from "@/lib/domain";
 import { env } from "@/lib/env";
 import { renderInvoicePdf } from "@/lib/pdf/invoice-pdf";
+import { creditNoteMail } from "./templates/credit-note";
 import { invoiceIssuedMail } from "./templates/invoice-issued";
 import { paymentFlaggedMail } from "./templates/payment-flagged";
 import { paymentReceiptMail } from "./templates/payment-receipt";
@@ -63,6 +65,23 @@ export async function notifyPaymentReceived(paymentId: string): Promise<void> {
   });
   const payer = p.method === "card" ? await userEmail(p.recordedBy) : [];
   await sendMail([...(await billingRecipients(inv.accountId)), ...payer], mail, "payment-receipt");
+}
+
+export async function notifyCreditNote(creditNoteId: string): Promise<void> {
+  const [c] = await getDb().select().from(creditNotes).where(eq(creditNotes.id, creditNoteId)).limit(1);
+  if (!c) return;
+  const inv = await getInvoiceDetail(SYSTEM, c.invoiceId);
+  if (!inv) return;
+  const mail = creditNoteMail({
+    creditNote: creditNoteLabel(c.number),
+    invoice: inv.label,
+    shopName: inv.shop?.name ?? "The shop",
+    amountCents: c.amountCents,
+    reason: c.reason,
+    balanceCents: inv.balanceCents,
+    url: appUrl(`/fleet/invoices/${inv.id}`),
+  });
+  await sendMail(await billingRecipients(inv.accountId), mail, "credit-note");
 }
 
 export async function notifyPaymentFlagged(paymentId: string): Promise<void> {

@@ -4,7 +4,7 @@
 // invoice never changes; a credit lowers what is owed and never past it.
 // Amounts: line amount = quantity × price (product.md computation rules).
 import { count, eq } from "drizzle-orm";
-import { beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as exportCsv } from "@/app/api/v1/accounts/[id]/export/route";
 import { GET as getInvoice } from "@/app/api/v1/invoices/[id]/route";
 import { getDb } from "@/db/client";
@@ -14,7 +14,11 @@ import { issueInvoice } from "@/db/queries/invoice-issue";
 import { getInvoiceDetail } from "@/db/queries/invoices";
 import { recordManualPayment, voidInvoice } from "@/db/queries/payments";
 import { creditNotes, invoices } from "@/db/schema";
+import { resetEnvCache } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
+import { notifyCreditNote } from "@/lib/mail/invoice-notices";
+import { formatCents } from "@/lib/money";
+import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { call } from "./helpers/app";
 import { asUser, setLines, workOrderByNumber } from "./helpers/billing";
 
@@ -24,8 +28,18 @@ const OFFICE = "office@kettle-ridge.example"; // approver, Kettle Ridge (owns Ha
 let invoiceId = "";
 let accountId = "";
 let sensorLineId = "";
+let smtp: FakeSmtp;
+
+afterAll(async () => {
+  delete process.env.SMTP_URL;
+  resetEnvCache();
+  await smtp?.close();
+});
 
 beforeAll(async () => {
+  smtp = await startFakeSmtp({ smtpPort: 0, httpPort: 0 });
+  process.env.SMTP_URL = `smtp://127.0.0.1:${smtp.smtpPort}`;
+  resetEnvCache();
   const wo = await workOrderByNumber(1048);
   accountId = wo.accountId;
   [, sensorLineId] = (await setLines(wo.id, [
@@ -45,7 +59,11 @@ describe("credit notes on an issued invoice", () => {
     const before = await detail();
     expect(before.totals.coreCents).toBe(3_000);
     const result = await setCoreReturned(await asUser(WRITER), sensorLineId, true);
-    expect(result.creditNote).toBe("CN-1");
+    expect(result.creditNote?.label).toBe("CN-1");
+    // The account's billing address hears of it, with what is still owed.
+    const mail = smtp.waitFor((m) => m.to.includes(OFFICE) && m.subject === "Credit CN-1: $30.00 off invoice " + before.label);
+    await notifyCreditNote(result.creditNote!.id);
+    expect((await mail).text).toContain(`${formatCents(before.totalCents - 3_000)} is still open on this invoice.`);
     const after = await detail();
     expect(after.lines).toEqual(before.lines);
     expect(after.totalCents).toBe(before.totalCents);
