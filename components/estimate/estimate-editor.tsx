@@ -6,7 +6,7 @@ import { Button } from "@/components/ui/button";
 import type { LineView, WorkOrderView } from "@/db/queries/work-order-view";
 import type { LineKind } from "@/lib/domain";
 import { sendEstimateAction } from "@/lib/actions/estimate";
-import { priceEstimate, type AccountSettings, type EstimateLine, type ShopSettings } from "@/lib/estimate";
+import { isApprovedState, priceEstimate, type AccountSettings, type EstimateLine, type ShopSettings } from "@/lib/estimate";
 import { formatCents } from "@/lib/money";
 import { LineForm, valuesToLine, type LineFormValues, type RateOption } from "./line-form";
 import { LineRow } from "./line-row";
@@ -98,7 +98,7 @@ export function EstimateEditor({
     return priceEstimate(next, shop, account);
   }, [editing, view.lines, shop, account]);
 
-  const standingUsed = view.lines.filter((l) => l.byStanding && ["approved", "in_progress", "done"].includes(l.state)).reduce((s, l) => s + l.amountCents, 0);
+  const standingUsed = view.lines.filter((l) => l.byStanding && isApprovedState(l.state)).reduce((s, l) => s + l.amountCents, 0);
   const standingLeft = view.limits.standingAuthorisationCents - standingUsed;
   const drafts = view.lines.filter((l) => l.state === "draft");
   const totals = preview?.totals ?? view.totals;

@@ -6,13 +6,14 @@ import { useNow } from "@/components/data/use-now";
 import { Button } from "@/components/ui/button";
 import { lineProgressAction } from "@/lib/actions/estimate";
 import { clockInAction, clockOutAction } from "@/lib/actions/time-clock";
-import { formatHours, milliHoursFromSeconds, timeBox } from "@/lib/estimate";
+import type { LineState } from "@/lib/domain";
+import { formatHours, isApprovedState, milliHoursFromSeconds, timeBox } from "@/lib/estimate";
 
 export interface ClockLine {
   id: string;
   description: string;
   kind: string;
-  state: string;
+  state: LineState;
   isDiagnosis: boolean;
   approvedMilli: number;
   usedMilli: number;
@@ -58,7 +59,7 @@ export function TimeClock({ workOrderId, lines }: { workOrderId: string; lines: 
       setError(r.ok ? null : (r.error ?? "That did not work."));
       router.refresh();
     });
-  const workable = lines.filter((l) => ["approved", "in_progress", "done"].includes(l.state));
+  const workable = lines.filter((l) => isApprovedState(l.state));
   if (!workable.length) return <p className="text-sm text-ink-faint">No approved work to clock yet.</p>;
   return (
     <div className="flex flex-col gap-3" data-testid="time-clock">

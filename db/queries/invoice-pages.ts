@@ -2,7 +2,8 @@ import { and, asc, desc, eq, exists, inArray, isNull, ne, notExists, or, sql } f
 import { getDb } from "@/db/client";
 import { accounts, estimateLines, invoices, shopSettings, units, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { workOrderLabel } from "@/lib/domain";
+import { workOrderLabel, type LineState } from "@/lib/domain";
+import { APPROVED_STATES } from "@/lib/estimate";
 import { buildInvoice } from "@/lib/invoices/build";
 import { toAccountSettings, toShopSettings } from "./estimate-context";
 import { toBillable } from "./invoice-issue";
@@ -14,6 +15,15 @@ const liveInvoice = (woId: typeof workOrders.id) =>
     .select({ one: sql`1` })
     .from(invoices)
     .where(and(eq(invoices.workOrderId, woId), ne(invoices.status, "void")));
+
+/** The work order has at least one line in one of these states. */
+const hasLineIn = (states: readonly LineState[]) =>
+  exists(
+    getDb()
+      .select({ one: sql`1` })
+      .from(estimateLines)
+      .where(and(eq(estimateLines.workOrderId, workOrders.id), inArray(estimateLines.state, states))),
+  );
 
 /** What the work order's Invoice section shows: a priced preview of the done lines, or the invoices issued. */
 export async function invoiceSection(user: SessionUser, workOrderId: string) {
@@ -73,7 +83,7 @@ export async function readyToInvoice(user: SessionUser) {
         scopedTo(workOrders.accountId, user),
         // Visits still being worked on are invoiced when they reach final check.
         inArray(workOrders.status, ["final_check", "ready", "released"]),
-        exists(getDb().select({ one: sql`1` }).from(estimateLines).where(and(eq(estimateLines.workOrderId, workOrders.id), eq(estimateLines.state, "done")))),
+        hasLineIn(["done"]),
         notExists(liveInvoice(workOrders.id)),
       ),
     )
@@ -100,12 +110,7 @@ export async function waitingForPo(user: SessionUser) {
         eq(accounts.poRequired, true),
         or(isNull(workOrders.poNumber), eq(workOrders.poNumber, "")),
         notExists(liveInvoice(workOrders.id)),
-        exists(
-          getDb()
-            .select({ one: sql`1` })
-            .from(estimateLines)
-            .where(and(eq(estimateLines.workOrderId, workOrders.id), inArray(estimateLines.state, ["approved", "in_progress", "done"]))),
-        ),
+        hasLineIn(APPROVED_STATES),
       ),
     )
     .orderBy(desc(workOrders.number));

@@ -28,22 +28,6 @@ const listColumns = {
   unitNumber: units.unitNumber,
 };
 
-interface ListRow {
-  id: string;
-  number: number;
-  accountId: string;
-  workOrderId: string;
-  status: InvoiceStatus;
-  issuedAt: string;
-  dueOn: string;
-  totalCents: number;
-  paidCents: number;
-  creditedCents: number;
-  poNumber: string | null;
-  accountName: string;
-  workOrderNumber: number;
-  unitNumber: string;
-}
 
 function listItem(r: ListRow) {
   return {
@@ -69,6 +53,7 @@ function listItem(r: ListRow) {
 }
 
 export type InvoiceListItem = ReturnType<typeof listItem>;
+type ListRow = Awaited<ReturnType<typeof listQuery>>[number];
 
 function listQuery(where: SQL | undefined) {
   return getDb()

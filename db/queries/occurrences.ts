@@ -1,4 +1,4 @@
-import { and, desc, eq, isNull, lt, or } from "drizzle-orm";
+import { and, desc, eq, isNull, lt, or, type SQL } from "drizzle-orm";
 import { getDb, writeTx, type Tx } from "@/db/client";
 import { concerns, occurrences, units, users, workOrders } from "@/db/schema";
 import { isStaff } from "@/lib/auth/policy";
@@ -39,23 +39,11 @@ const occurrenceColumns = {
   updatedAt: occurrences.updatedAt,
 };
 
-interface OccurrenceRow {
-  id: string;
-  unitId: string;
-  concernId: string | null;
-  occurredAt: string;
-  hoursParked: number | null;
-  ambientC: number | null;
-  symptom: string;
-  symptomText: string;
-  batteryVolts: number | null;
-  recovered: boolean | null;
-  note: string;
-  createdById: string | null;
-  createdByName: string | null;
-  createdAt: string;
-  updatedAt: string;
+function occurrenceQuery(where: SQL | undefined) {
+  return getDb().select(occurrenceColumns).from(occurrences).leftJoin(users, eq(users.id, occurrences.createdBy)).where(where);
 }
+
+type OccurrenceRow = Awaited<ReturnType<typeof occurrenceQuery>>[number];
 
 /** The API's shape for one entry; `canEdit` tells the caller whether PATCH would be allowed. */
 export function occurrenceJson(row: OccurrenceRow, user: SessionUser, photo: OccurrencePhotoRef | null = null) {
@@ -106,23 +94,16 @@ export async function listOccurrences(
   if (opts.cursor && !after) throw invalidInput([{ path: "cursor", message: "Not a cursor this API issued." }]);
   const [afterAt, afterId] = after ?? [];
 
-  const rows = await getDb()
-    .select(occurrenceColumns)
-    .from(occurrences)
-    .leftJoin(users, eq(users.id, occurrences.createdBy))
-    .where(
-      and(
-        eq(occurrences.unitId, unit.id),
-        scopedTo(occurrences.accountId, user),
-        opts.concernId ? eq(occurrences.concernId, opts.concernId) : undefined,
-        after
-          ? or(
-              lt(occurrences.occurredAt, String(afterAt)),
-              and(eq(occurrences.occurredAt, String(afterAt)), lt(occurrences.id, String(afterId))),
-            )
-          : undefined,
-      ),
-    )
+  const rows = await occurrenceQuery(
+    and(
+      eq(occurrences.unitId, unit.id),
+      scopedTo(occurrences.accountId, user),
+      opts.concernId ? eq(occurrences.concernId, opts.concernId) : undefined,
+      after
+        ? or(lt(occurrences.occurredAt, String(afterAt)), and(eq(occurrences.occurredAt, String(afterAt)), lt(occurrences.id, String(afterId))))
+        : undefined,
+    ),
+  )
     .orderBy(desc(occurrences.occurredAt), desc(occurrences.id))
     .limit(opts.limit + 1);
   const { page, nextCursor } = paginate(rows, opts.limit, (r) => [r.occurredAt, r.id]);
@@ -174,12 +155,7 @@ export async function addOccurrence(user: SessionUser, unitId: string, input: Oc
 }
 
 export async function getOccurrence(user: SessionUser, unitId: string, occurrenceId: string) {
-  const [row] = await getDb()
-    .select(occurrenceColumns)
-    .from(occurrences)
-    .leftJoin(users, eq(users.id, occurrences.createdBy))
-    .where(and(eq(occurrences.id, occurrenceId), eq(occurrences.unitId, unitId), scopedTo(occurrences.accountId, user)))
-    .limit(1);
+  const [row] = await occurrenceQuery(and(eq(occurrences.id, occurrenceId), eq(occurrences.unitId, unitId), scopedTo(occurrences.accountId, user))).limit(1);
   if (!row) return null;
   const photo = (await photosOfOccurrences([row.id])).get(row.id) ?? null;
   return occurrenceJson(row, user, photo);
