@@ -1,13 +1,13 @@
-import { and, eq } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { writeTx } from "@/db/client";
-import { statusEvents, units, workOrders } from "@/db/schema";
+import { statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { STATUS_LABELS, workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
 import { formatDate } from "@/lib/format";
 import { conflict, invalidInput, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
 import { recordAudit } from "./audit";
-import { scopedTo } from "./scope";
+import { findWorkOrder } from "./work-order-detail";
 
 /**
  * Moves a visit to a status with an optional note, and writes the dated
@@ -17,22 +17,7 @@ import { scopedTo } from "./scope";
  */
 export async function moveStatus(user: SessionUser, workOrderId: string, move: { status: WorkOrderStatus; note: string }) {
   return writeTx(async (tx) => {
-    const [wo] = await tx
-      .select({
-        id: workOrders.id,
-        number: workOrders.number,
-        unitId: workOrders.unitId,
-        accountId: workOrders.accountId,
-        status: workOrders.status,
-        title: workOrders.title,
-        promisedAt: workOrders.promisedAt,
-        releasedAt: workOrders.releasedAt,
-        unitNumber: units.unitNumber,
-      })
-      .from(workOrders)
-      .innerJoin(units, eq(units.id, workOrders.unitId))
-      .where(and(eq(workOrders.id, workOrderId), scopedTo(workOrders.accountId, user)))
-      .limit(1);
+    const wo = await findWorkOrder(user, workOrderId, tx);
     if (!wo) throw notFound("That work order");
     const label = workOrderLabel(wo.number);
     if (wo.status === "released") {

@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getDb, type Reader } from "@/db/client";
 import { accounts, concerns, decisions, estimateLines, findingReadings, findings, photos, statusEvents, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { SEVERITIES } from "@/lib/domain";
@@ -10,8 +10,8 @@ export function photoUrls(photoId: string) {
 }
 
 /** The work order's header row, scoped: null for an id that does not exist or belongs to another account. */
-export async function findWorkOrder(user: SessionUser, id: string) {
-  const [row] = await getDb()
+export async function findWorkOrder(user: SessionUser, id: string, db: Reader = getDb()) {
+  const [row] = await db
     .select({
       id: workOrders.id,
       number: workOrders.number,
