@@ -23,9 +23,9 @@ function tooLarge(maxBytes: number) {
   return new HttpError(413, "payload_too_large", "Payload too large", `The body may be at most ${maxBytes} bytes.`);
 }
 
-async function readLimited(request: Request, maxBytes: number): Promise<string> {
-  if (!request.body) return "";
-  const reader = request.body.getReader();
+/** A stream's bytes, or null as soon as there are more than `maxBytes` (the rest is never read). */
+export async function readUpTo(stream: ReadableStream<Uint8Array>, maxBytes: number): Promise<Buffer | null> {
+  const reader = stream.getReader();
   const chunks: Uint8Array[] = [];
   let size = 0;
   for (;;) {
@@ -34,9 +34,16 @@ async function readLimited(request: Request, maxBytes: number): Promise<string> 
     size += value.byteLength;
     if (size > maxBytes) {
       await reader.cancel();
-      throw tooLarge(maxBytes);
+      return null;
     }
     chunks.push(value);
   }
-  return new TextDecoder().decode(Buffer.concat(chunks));
+  return Buffer.concat(chunks);
+}
+
+async function readLimited(request: Request, maxBytes: number): Promise<string> {
+  if (!request.body) return "";
+  const bytes = await readUpTo(request.body, maxBytes);
+  if (!bytes) throw tooLarge(maxBytes);
+  return new TextDecoder().decode(bytes);
 }

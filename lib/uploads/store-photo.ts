@@ -1,5 +1,6 @@
 import { UTFile } from "uploadthing/server";
 import { insertPhoto } from "@/db/queries/photos";
+import { readUpTo } from "@/lib/http/read-body";
 import { photoUrls } from "@/db/queries/work-order-detail";
 import { CleanPhoto, UnreadablePhotoError, cleanPhoto } from "./clean-photo";
 import { jpegHasGps } from "./exif-gps";
@@ -81,20 +82,7 @@ async function readStored(key: string): Promise<Uint8Array | null> {
   const { ufsUrl } = await utApi().generateSignedURL(key, { expiresIn: 120 });
   const res = await fetch(ufsUrl, { signal: AbortSignal.timeout(30_000) });
   if (!res.ok || !res.body) throw new Error(`fetching the upload answered ${res.status}`);
-  const reader = res.body.getReader();
-  const chunks: Uint8Array[] = [];
-  let size = 0;
-  for (;;) {
-    const { done, value } = await reader.read();
-    if (done) break;
-    size += value.byteLength;
-    if (size > PHOTO_MAX_BYTES) {
-      await reader.cancel();
-      return null;
-    }
-    chunks.push(value);
-  }
-  return Buffer.concat(chunks);
+  return readUpTo(res.body, PHOTO_MAX_BYTES);
 }
 
 async function storeClean(clean: CleanPhoto, base: string): Promise<[{ key: string; ufsUrl: string }, { key: string; ufsUrl: string }]> {
