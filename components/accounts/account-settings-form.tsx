@@ -1,9 +1,9 @@
 "use client";
 
-import { useActionState, useState } from "react";
+import { useState } from "react";
 import { Field, FormMessage, inputClass } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { updateAccountAction } from "@/lib/actions/accounts";
 
 export interface AccountFormValues {
@@ -34,14 +34,12 @@ const SHAPES = [
 
 const MONTHS = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
 
-type State = ActionResult<{ changed: number }> | null;
-
 export function AccountSettingsForm({ initial }: { initial: AccountFormValues }) {
-  const [state, action, pending] = useActionState<State, FormData>((_p, form) => updateAccountAction(form), null);
+  const [state, action, pending, formRef] = useGuardedForm(updateAccountAction);
   const [overrun, setOverrun] = useState({ percent: initial.overrunPercent, cap: initial.overrunCap, floor: initial.overrunFloor });
   const errors = state && !state.ok ? (state.fieldErrors ?? {}) : {};
   return (
-    <form action={action} className="flex flex-col gap-5" data-testid="account-settings">
+    <form ref={formRef} action={action} className="flex flex-col gap-5" data-testid="account-settings">
       <input type="hidden" name="accountId" value={initial.accountId} />
       <fieldset className="grid gap-3 md:grid-cols-3">
         <legend className="mb-2 text-lg font-bold">Spending limits</legend>

@@ -1,16 +1,15 @@
 "use client";
 
-import { useActionState } from "react";
 import { inputClass } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { signingLimitAction } from "@/lib/actions/accounts";
 
 /** One approver's signing limit, editable in place. */
 export function SigningLimitRow({ userId, name, email, limit }: { userId: string; name: string; email: string; limit: string }) {
-  const [state, action, pending] = useActionState<ActionResult<null> | null, FormData>((_p, form) => signingLimitAction(form), null);
+  const [state, action, pending, formRef] = useGuardedForm(signingLimitAction);
   return (
-    <form action={action} className="flex flex-wrap items-end gap-3 border-t border-rule py-2">
+    <form ref={formRef} action={action} className="flex flex-wrap items-end gap-3 border-t border-rule py-2">
       <input type="hidden" name="userId" value={userId} />
       <div className="min-w-48 flex-1">
         <p className="font-semibold">{name}</p>

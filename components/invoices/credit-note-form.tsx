@@ -1,20 +1,17 @@
 "use client";
 
-import { useActionState } from "react";
 import { Field, FormMessage } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { creditNoteAction } from "@/lib/actions/invoices";
 import { formatCents } from "@/lib/money";
 
-type State = ActionResult<{ label: string; balanceCents: number }> | null;
-
 /** A numbered credit against an issued invoice, up to what is still owed; the invoice itself stays as issued. */
 export function CreditNoteForm({ invoiceId, balanceCents }: { invoiceId: string; balanceCents: number }) {
-  const [state, formAction, pending] = useActionState<State, FormData>((_prev, form) => creditNoteAction(form), null);
+  const [state, formAction, pending, formRef] = useGuardedForm(creditNoteAction);
   const errors = state && !state.ok ? state.fieldErrors : undefined;
   return (
-    <form action={formAction} className="flex flex-col gap-3" data-testid="credit-note">
+    <form ref={formRef} action={formAction} className="flex flex-col gap-3" data-testid="credit-note">
       <input type="hidden" name="invoiceId" value={invoiceId} />
       <p className="text-sm text-ink-soft">
         For a price put right or a core that came back after money was paid. Up to the {formatCents(balanceCents)} still owed; a refund is settled with the

@@ -1,13 +1,10 @@
 "use client";
 
-import { useActionState } from "react";
 import { Field, FormMessage } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
 import { Money } from "@/components/ui/money";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { issueInvoiceAction } from "@/lib/actions/invoices";
-
-type State = ActionResult<never> | null;
 
 export function IssueInvoiceForm({
   workOrderId,
@@ -24,10 +21,10 @@ export function IssueInvoiceForm({
   totalCents: number;
   replaces: string | null;
 }) {
-  const [state, formAction, pending] = useActionState<State, FormData>((_prev, form) => issueInvoiceAction(form), null);
+  const [state, formAction, pending, formRef] = useGuardedForm(issueInvoiceAction);
   const errors = state && !state.ok ? state.fieldErrors : undefined;
   return (
-    <form action={formAction} className="flex flex-col gap-3" data-testid="issue-invoice">
+    <form ref={formRef} action={formAction} className="flex flex-col gap-3" data-testid="issue-invoice">
       <input type="hidden" name="workOrderId" value={workOrderId} />
       <Field
         label={poRequired ? "PO number (required)" : "PO number (optional)"}

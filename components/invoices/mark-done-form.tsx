@@ -1,19 +1,16 @@
 "use client";
 
-import { useActionState } from "react";
 import { FormMessage } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { LINE_STATE_LABELS, type LineState } from "@/lib/domain";
 import { markLinesDoneAction } from "@/lib/actions/invoices";
 
-type State = ActionResult<{ count: number }> | null;
-
 /** Approved work not marked done is not billed; the shop can close it here if it is finished. */
 export function MarkDoneForm({ workOrderId, lines }: { workOrderId: string; lines: { id: string; description: string; state: LineState }[] }) {
-  const [state, formAction, pending] = useActionState<State, FormData>((_prev, form) => markLinesDoneAction(form), null);
+  const [state, formAction, pending, formRef] = useGuardedForm(markLinesDoneAction);
   return (
-    <form action={formAction} className="flex flex-col gap-2 rounded-card border-2 border-rust bg-rust-wash p-3" data-testid="not-done">
+    <form ref={formRef} action={formAction} className="flex flex-col gap-2 rounded-card border-2 border-rust bg-rust-wash p-3" data-testid="not-done">
       <input type="hidden" name="workOrderId" value={workOrderId} />
       <p className="font-semibold text-rust-deep">
         {lines.length === 1 ? "One approved line is" : `${lines.length} approved lines are`} not marked done and will not be on the invoice:

@@ -1,16 +1,13 @@
 "use client";
 
-import { useActionState } from "react";
 import { Field, FormMessage } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { setPoNumberAction } from "@/lib/actions/invoices";
-
-type State = ActionResult<{ poNumber: string }> | null;
 
 /** The fleet enters the PO number a work order needs before the shop can invoice it. */
 export function PoNumberForm({ workOrderId, label }: { workOrderId: string; label: string }) {
-  const [state, formAction, pending] = useActionState<State, FormData>((_prev, form) => setPoNumberAction(form), null);
+  const [state, formAction, pending, formRef] = useGuardedForm(setPoNumberAction);
   const errors = state && !state.ok ? state.fieldErrors : undefined;
   if (state?.ok) {
     return (
@@ -20,7 +17,7 @@ export function PoNumberForm({ workOrderId, label }: { workOrderId: string; labe
     );
   }
   return (
-    <form action={formAction} className="flex flex-wrap items-end gap-2" data-testid="po-form">
+    <form ref={formRef} action={formAction} className="flex flex-wrap items-end gap-2" data-testid="po-form">
       <input type="hidden" name="workOrderId" value={workOrderId} />
       <Field label={`PO number for ${label}`} name="poNumber" required maxLength={60} error={errors?.poNumber} className="min-w-0 flex-1" />
       <Button type="submit" disabled={pending}>

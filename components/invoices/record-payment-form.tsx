@@ -1,13 +1,12 @@
 "use client";
 
-import { useActionState, useState } from "react";
+import { useState } from "react";
 import { Field, FormMessage, inputClass } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { recordPaymentAction } from "@/lib/actions/invoices";
 import { decimalDollars } from "@/lib/invoices/csv";
 
-type State = ActionResult<{ balanceCents: number; status: string }> | null;
 
 /** A cheque, transfer or cash payment, whole or in part. */
 export function RecordPaymentForm({ invoiceId, balanceCents, today }: { invoiceId: string; balanceCents: number; today: string }) {
@@ -19,10 +18,10 @@ export function RecordPaymentForm({ invoiceId, balanceCents, today }: { invoiceI
     setOfferedFor(balanceCents);
     setAmount(decimalDollars(balanceCents));
   }
-  const [state, formAction, pending] = useActionState<State, FormData>((_prev, form) => recordPaymentAction(form), null);
+  const [state, formAction, pending, formRef] = useGuardedForm(recordPaymentAction);
   const errors = state && !state.ok ? state.fieldErrors : undefined;
   return (
-    <form action={formAction} className="flex flex-col gap-3" data-testid="record-payment">
+    <form ref={formRef} action={formAction} className="flex flex-col gap-3" data-testid="record-payment">
       <input type="hidden" name="invoiceId" value={invoiceId} />
       <label className="flex flex-col gap-1">
         <span className="font-semibold">How it arrived</span>

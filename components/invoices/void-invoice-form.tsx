@@ -1,19 +1,16 @@
 "use client";
 
-import { useActionState } from "react";
 import { Field, FormMessage } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { voidInvoiceAction } from "@/lib/actions/invoices";
-
-type State = ActionResult<never> | null;
 
 /** Voiding keeps the invoice and its number; the work order can then be invoiced again. */
 export function VoidInvoiceForm({ invoiceId, label }: { invoiceId: string; label: string }) {
-  const [state, formAction, pending] = useActionState<State, FormData>((_prev, form) => voidInvoiceAction(form), null);
+  const [state, formAction, pending, formRef] = useGuardedForm(voidInvoiceAction);
   const errors = state && !state.ok ? state.fieldErrors : undefined;
   return (
-    <form action={formAction} className="flex flex-col gap-3" data-testid="void-invoice">
+    <form ref={formRef} action={formAction} className="flex flex-col gap-3" data-testid="void-invoice">
       <input type="hidden" name="invoiceId" value={invoiceId} />
       <p className="text-sm text-ink-soft">
         {label} stays on record, marked void, and keeps its number. Issue the corrected invoice from the work order afterwards.

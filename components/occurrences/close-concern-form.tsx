@@ -1,21 +1,19 @@
 "use client";
 
-import { useActionState } from "react";
 import { FormMessage, inputClass } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { closeConcernAction } from "@/lib/actions/intermittent-concerns";
 
-type State = ActionResult<{ id: string; closedAt: string }> | null;
 
 /** Closes the concern with the cause found; the fleet reads this as the shop's conclusion. */
 export function CloseConcernForm({ concernId }: { concernId: string }) {
-  const [state, action, pending] = useActionState<State, FormData>((_prev, form) => closeConcernAction(form), null);
+  const [state, action, pending, formRef] = useGuardedForm(closeConcernAction);
   const errors = state && !state.ok ? state.fieldErrors : undefined;
   return (
     <details className="rounded-card border border-rule bg-paper p-3">
       <summary className="min-h-touch cursor-pointer py-2 font-bold">Cause found: close this concern</summary>
-      <form action={action} className="mt-2 flex flex-col gap-3" data-testid="close-concern-form">
+      <form ref={formRef} action={action} className="mt-2 flex flex-col gap-3" data-testid="close-concern-form">
         <input type="hidden" name="concernId" value={concernId} />
         <label className="flex flex-col gap-1">
           <span className="font-semibold">What the cause was and what was done (the fleet sees this)</span>

@@ -1,12 +1,10 @@
 "use client";
 
-import { useActionState } from "react";
 import { FormMessage, inputClass } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { markIntermittentAction } from "@/lib/actions/intermittent-concerns";
 
-type State = ActionResult<{ id: string; adopted: number }> | null;
 
 export const RECORD_HINT_EXAMPLE =
   "Note how long it sat and the outside temperature; if you can, read battery voltage before cranking.";
@@ -23,10 +21,10 @@ export function MarkIntermittentForm({
   currentHint?: string;
   submitLabel?: string;
 }) {
-  const [state, action, pending] = useActionState<State, FormData>((_prev, form) => markIntermittentAction(form), null);
+  const [state, action, pending, formRef] = useGuardedForm(markIntermittentAction);
   const errors = state && !state.ok ? state.fieldErrors : undefined;
   return (
-    <form action={action} className="flex flex-col gap-3" data-testid="mark-intermittent-form">
+    <form ref={formRef} action={action} className="flex flex-col gap-3" data-testid="mark-intermittent-form">
       {concernId ? (
         <input type="hidden" name="concernId" value={concernId} />
       ) : (

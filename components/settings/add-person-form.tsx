@@ -1,18 +1,18 @@
 "use client";
 
-import { useActionState, useState } from "react";
+import { useState } from "react";
 import { Field, FormMessage, inputClass } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { addPersonAction } from "@/lib/actions/people";
 import { ROLE_LABELS, ROLES, isShopRole, type Role } from "@/lib/domain";
 
 export function AddPersonForm({ accounts }: { accounts: { id: string; name: string }[] }) {
-  const [state, action, pending] = useActionState<ActionResult<{ id: string }> | null, FormData>((_p, f) => addPersonAction(f), null);
+  const [state, action, pending, formRef] = useGuardedForm(addPersonAction);
   const [role, setRole] = useState<Role>("approver");
   const errors = state && !state.ok ? (state.fieldErrors ?? {}) : {};
   return (
-    <form action={action} className="grid gap-3 md:grid-cols-3">
+    <form ref={formRef} action={action} className="grid gap-3 md:grid-cols-3">
       <Field label="Name" name="name" error={errors.name} />
       <Field label="E-mail" name="email" type="email" error={errors.email} />
       <label className="flex flex-col gap-1">

@@ -1,9 +1,9 @@
 "use client";
 
-import { useActionState, useTransition } from "react";
+import { useTransition } from "react";
 import { Field, FormMessage } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { createTokenAction, revokeTokenAction } from "@/lib/actions/api-tokens";
 import { formatDateTime } from "@/lib/format";
 
@@ -18,11 +18,11 @@ export interface TokenRow {
 
 /** Personal API tokens for the fleet's own scripts: shown once, stored hashed, revocable. */
 export function ApiTokens({ tokens }: { tokens: TokenRow[] }) {
-  const [state, create, creating] = useActionState<ActionResult<{ token: string; prefix: string }> | null, FormData>((_p, f) => createTokenAction(f), null);
+  const [state, create, creating, formRef] = useGuardedForm(createTokenAction);
   const [revoking, startRevoke] = useTransition();
   return (
     <div className="flex flex-col gap-4">
-      <form action={create} className="flex flex-wrap items-end gap-3">
+      <form ref={formRef} action={create} className="flex flex-wrap items-end gap-3">
         <Field label="New token name" name="name" placeholder="e.g. nightly fleet export" className="min-w-64 flex-1" error={state && !state.ok ? state.fieldErrors?.name : undefined} />
         <Button type="submit" disabled={creating}>
           Create token

@@ -1,16 +1,15 @@
 "use client";
 
-import { useActionState } from "react";
 import { inputClass } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { laborRateAction } from "@/lib/actions/shop-settings";
 
 /** One labour rate (or a blank one to add). */
 export function LaborRateRow({ rate }: { rate?: { id: string; name: string; rate: string; isDefault: boolean; active: boolean } }) {
-  const [state, action, pending] = useActionState<ActionResult<null> | null, FormData>((_p, f) => laborRateAction(f), null);
+  const [state, action, pending, formRef] = useGuardedForm(laborRateAction);
   return (
-    <form action={action} className="flex flex-wrap items-end gap-3 border-t border-rule py-2">
+    <form ref={formRef} action={action} className="flex flex-wrap items-end gap-3 border-t border-rule py-2">
       <input type="hidden" name="id" value={rate?.id ?? ""} />
       <label className="flex flex-col gap-1">
         <span className="text-sm font-semibold">Name</span>

@@ -1,9 +1,8 @@
 "use client";
 
-import { useActionState } from "react";
 import { Field, FormMessage } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { shopSettingsAction } from "@/lib/actions/shop-settings";
 
 export interface ShopFormValues {
@@ -33,10 +32,10 @@ function Check({ name, label, checked }: { name: string; label: string; checked:
 
 /** The owner's shop settings: who we are, the shop-supplies fee, and which kinds of line are taxed. */
 export function ShopSettingsForm({ initial }: { initial: ShopFormValues }) {
-  const [state, action, pending] = useActionState<ActionResult<null> | null, FormData>((_p, f) => shopSettingsAction(f), null);
+  const [state, action, pending, formRef] = useGuardedForm(shopSettingsAction);
   const errors = state && !state.ok ? (state.fieldErrors ?? {}) : {};
   return (
-    <form action={action} className="flex flex-col gap-4">
+    <form ref={formRef} action={action} className="flex flex-col gap-4">
       <div className="grid gap-3 md:grid-cols-2">
         <Field label="Shop name" name="shopName" defaultValue={initial.shopName} error={errors.shopName} />
         <Field label="E-mail" name="email" defaultValue={initial.email} />

@@ -1,21 +1,15 @@
 "use client";
 
-import { useActionState } from "react";
 import { Field, FormMessage, inputClass } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import type { ActionResult } from "@/lib/auth/guarded-action";
 import { addMeterReadingAction } from "@/lib/actions/meter-readings";
 
-type State = ActionResult<{ id: string }> | null;
-
 export function MeterReadingForm({ unitId }: { unitId: string }) {
-  const [state, formAction, pending] = useActionState<State, FormData>(
-    (_prev, form) => addMeterReadingAction(form),
-    null,
-  );
+  const [state, formAction, pending, formRef] = useGuardedForm(addMeterReadingAction);
   const fieldErrors = state && !state.ok ? state.fieldErrors : undefined;
   return (
-    <form action={formAction} className="flex flex-col gap-3" data-testid="meter-form">
+    <form ref={formRef} action={formAction} className="flex flex-col gap-3" data-testid="meter-form">
       <input type="hidden" name="unitId" value={unitId} />
       <div className="grid gap-3 sm:grid-cols-2">
         <label className="flex flex-col gap-1">

@@ -163,6 +163,14 @@ describe("invoices and card payment, in Chromium", () => {
     await page.goto("/invoices?state=open");
     await page.getByTestId("invoice-row").filter({ visible: true, hasText: "Alder Falls" }).first().getByRole("link").first().click();
     const form = page.getByTestId("credit-note");
+    // Refused first (more than is owed): the reason shows and what was typed stays in the form.
+    await form.getByLabel("Credit ($)").fill("99999.00");
+    await form.getByLabel("What it is for").fill("Goodwill: brake recheck at no charge");
+    await form.getByRole("button", { name: "Issue credit note" }).click();
+    await form.getByRole("alert").waitFor();
+    expect(await form.getByRole("alert").textContent()).toMatch(/is more than the open balance/);
+    expect(await form.getByLabel("Credit ($)").inputValue()).toBe("99999.00");
+    expect(await form.getByLabel("What it is for").inputValue()).toBe("Goodwill: brake recheck at no charge");
     await form.getByLabel("Credit ($)").fill("25.00");
     await form.getByLabel("What it is for").fill("Goodwill: brake recheck at no charge");
     await form.getByRole("button", { name: "Issue credit note" }).click();
