@@ -1,6 +1,6 @@
-import { and, eq, gt, ne } from "drizzle-orm";
+import { and, eq, gt } from "drizzle-orm";
 import { writeTx } from "@/db/client";
-import { estimateLines, invoiceLines, invoices, statusEvents } from "@/db/schema";
+import { estimateLines, invoiceLines, statusEvents } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { invoiceLabel, workOrderLabel } from "@/lib/domain";
 import { isApprovedState } from "@/lib/estimate";
@@ -9,6 +9,7 @@ import { nowIso } from "@/lib/ids";
 import { formatCents, lineAmountCents } from "@/lib/money";
 import { recordAudit } from "./audit";
 import { creditInvoiceInTx } from "./credit-notes";
+import { liveInvoiceOf } from "./invoice-issue";
 import { loadLineContext } from "./estimate-lines";
 
 /**
@@ -29,11 +30,7 @@ export async function setCoreReturned(user: SessionUser, lineId: string, returne
     }
     if ((line.coreReturnedAt !== null) === returned) return { workOrderId: ctx.wo.id, changed: false, creditNote: null };
 
-    const [live] = await tx
-      .select()
-      .from(invoices)
-      .where(and(eq(invoices.workOrderId, ctx.wo.id), ne(invoices.status, "void")))
-      .limit(1);
+    const live = await liveInvoiceOf(tx, ctx.wo.id);
     const coreCents = lineAmountCents(line.quantityMilli, line.coreChargeCents);
     let creditNote: { id: string; label: string } | null = null;
     if (live) {

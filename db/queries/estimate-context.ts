@@ -49,17 +49,23 @@ export function toShopSettings(s: ShopRow): ShopSettings {
   };
 }
 
-/**
- * Everything the estimate rules need about one work order, read inside the
- * caller's transaction so the check and the write see the same rows.
- */
-export async function loadEstimateContext(tx: Reader, user: SessionUser, workOrderId: string) {
+/** The work order's own row, scoped to the user's account; another account's is not found. */
+export async function loadWorkOrderRow(tx: Reader, user: Pick<SessionUser, "role" | "accountId">, workOrderId: string) {
   const [wo] = await tx
     .select()
     .from(workOrders)
     .where(and(eq(workOrders.id, workOrderId), scopedTo(workOrders.accountId, user)))
     .limit(1);
   if (!wo) throw notFound("That work order");
+  return wo;
+}
+
+/**
+ * Everything the estimate rules need about one work order, read inside the
+ * caller's transaction so the check and the write see the same rows.
+ */
+export async function loadEstimateContext(tx: Reader, user: SessionUser, workOrderId: string) {
+  const wo = await loadWorkOrderRow(tx, user, workOrderId);
   const [[account], [shop], lines] = await Promise.all([
     tx.select().from(accounts).where(eq(accounts.id, wo.accountId)).limit(1),
     tx.select().from(shopSettings).where(eq(shopSettings.id, 1)).limit(1),

@@ -1,5 +1,5 @@
 import { and, desc, eq, inArray, ne, sql } from "drizzle-orm";
-import { writeTx, type Tx } from "@/db/client";
+import { writeTx, type Reader, type Tx } from "@/db/client";
 import {
   accountContacts,
   accounts,
@@ -12,6 +12,7 @@ import {
   workOrders,
   type Account,
   type EstimateLine,
+  type Invoice,
   type ShopSettings as ShopRow,
   type Unit,
   type WorkOrder,
@@ -20,14 +21,13 @@ import type { SessionUser } from "@/lib/auth/session-user";
 import { invoiceLabel, workOrderLabel } from "@/lib/domain";
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
-import { conflict, notFound } from "@/lib/http/problem";
+import { conflict } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
 import { dueDateOf } from "@/lib/invoices/balance";
 import { buildInvoice, type BillableLine } from "@/lib/invoices/build";
 import type { BillTo, ShopSnapshot, UnitSnapshot } from "@/lib/invoices/snapshot";
 import { recordAudit } from "./audit";
-import { toAccountSettings, toShopSettings } from "./estimate-context";
-import { scopedTo } from "./scope";
+import { loadWorkOrderRow, toAccountSettings, toShopSettings } from "./estimate-context";
 
 export function toBillable(row: EstimateLine): BillableLine {
   return {
@@ -55,14 +55,19 @@ export interface InvoiceSources {
   billingContact: string;
 }
 
+/** The work order's invoice that is not void, if there is one (at most one: a unique index). */
+export async function liveInvoiceOf(tx: Reader, workOrderId: string): Promise<Invoice | null> {
+  const [live] = await tx
+    .select()
+    .from(invoices)
+    .where(and(eq(invoices.workOrderId, workOrderId), ne(invoices.status, "void")))
+    .limit(1);
+  return live ?? null;
+}
+
 /** Everything an invoice is made from, read inside the caller's transaction. */
 export async function loadInvoiceSources(tx: Tx, user: Pick<SessionUser, "role" | "accountId">, workOrderId: string): Promise<InvoiceSources> {
-  const [wo] = await tx
-    .select()
-    .from(workOrders)
-    .where(and(eq(workOrders.id, workOrderId), scopedTo(workOrders.accountId, user)))
-    .limit(1);
-  if (!wo) throw notFound("That work order");
+  const wo = await loadWorkOrderRow(tx, user, workOrderId);
   const [[account], [shop], [unit], lines, contacts] = await Promise.all([
     tx.select().from(accounts).where(eq(accounts.id, wo.accountId)).limit(1),
     tx.select().from(shopSettings).where(eq(shopSettings.id, 1)).limit(1),
@@ -108,11 +113,7 @@ export async function createInvoiceInTx(
   opts: { poNumber: string | null; issuedAt: Date; issuedBy: string | null; timeZone: string },
 ) {
   const { wo, account } = src;
-  const [live] = await tx
-    .select({ number: invoices.number })
-    .from(invoices)
-    .where(and(eq(invoices.workOrderId, wo.id), ne(invoices.status, "void")))
-    .limit(1);
+  const live = await liveInvoiceOf(tx, wo.id);
   if (live) {
     throw conflict(
       "already_invoiced",
@@ -201,12 +202,7 @@ export async function issueInvoice(user: SessionUser, workOrderId: string, input
 /** Marks approved work finished (owner, writer, from the issue screen). */
 export async function markLinesDone(user: SessionUser, workOrderId: string, lineIds: string[]) {
   return writeTx(async (tx) => {
-    const [wo] = await tx
-      .select({ id: workOrders.id, accountId: workOrders.accountId })
-      .from(workOrders)
-      .where(and(eq(workOrders.id, workOrderId), scopedTo(workOrders.accountId, user)))
-      .limit(1);
-    if (!wo) throw notFound("That work order");
+    const wo = await loadWorkOrderRow(tx, user, workOrderId);
     const changed = await tx
       .update(estimateLines)
       .set({ state: "done", updatedAt: nowIso() })
@@ -234,17 +230,8 @@ export async function markLinesDone(user: SessionUser, workOrderId: string, line
 /** The clerk (or the shop) enters the work order's PO number before it is invoiced. */
 export async function setWorkOrderPoNumber(user: SessionUser, workOrderId: string, poNumber: string) {
   return writeTx(async (tx) => {
-    const [wo] = await tx
-      .select({ id: workOrders.id, accountId: workOrders.accountId, number: workOrders.number, poNumber: workOrders.poNumber })
-      .from(workOrders)
-      .where(and(eq(workOrders.id, workOrderId), scopedTo(workOrders.accountId, user)))
-      .limit(1);
-    if (!wo) throw notFound("That work order");
-    const [live] = await tx
-      .select({ number: invoices.number })
-      .from(invoices)
-      .where(and(eq(invoices.workOrderId, wo.id), ne(invoices.status, "void")))
-      .limit(1);
+    const wo = await loadWorkOrderRow(tx, user, workOrderId);
+    const live = await liveInvoiceOf(tx, wo.id);
     if (live) {
       throw conflict(
         "already_invoiced",

@@ -1,6 +1,6 @@
 import { and, eq, isNotNull, or } from "drizzle-orm";
 import { getDb, writeTx } from "@/db/client";
-import { occurrences, photos, units, workOrders } from "@/db/schema";
+import { occurrences, photos, workOrders } from "@/db/schema";
 import { isStaff } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { scopedTo } from "./scope";
@@ -10,7 +10,6 @@ export async function workOrderForUpload(user: SessionUser, workOrderId: string)
   const [row] = await getDb()
     .select({ id: workOrders.id, accountId: workOrders.accountId, unitId: workOrders.unitId, status: workOrders.status })
     .from(workOrders)
-    .innerJoin(units, eq(units.id, workOrders.unitId))
     .where(and(eq(workOrders.id, workOrderId), scopedTo(workOrders.accountId, user)))
     .limit(1);
   return row ?? null;
