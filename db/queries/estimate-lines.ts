@@ -21,6 +21,20 @@ async function checkConcern(tx: Tx, workOrderId: string, concernId: string | und
   if (!row) throw invalidInput([{ path: "concernId", message: "That concern is not on this work order." }]);
 }
 
+/** The columns a writer sets, from the form: only parts carry a core, only labour can be diagnosis. */
+function lineFields(input: NewLineInput | EditLineInput) {
+  return {
+    kind: input.kind,
+    description: input.description,
+    partNumber: input.partNumber,
+    quantityMilli: input.quantity,
+    unitPriceCents: input.unitPrice,
+    taxable: input.taxable,
+    coreChargeCents: input.kind === "part" ? input.coreCharge : 0,
+    isDiagnosis: input.kind === "labor" && input.isDiagnosis,
+  };
+}
+
 /** The line and its work order's context, scoped; another account's line is not found. */
 export async function loadLineContext(tx: Tx, user: SessionUser, lineId: string) {
   const [ref] = await tx
@@ -47,14 +61,7 @@ export async function addLine(user: SessionUser, input: NewLineInput) {
         workOrderId: ctx.wo.id,
         concernId: input.concernId ?? null,
         position,
-        kind: input.kind,
-        description: input.description,
-        partNumber: input.partNumber,
-        quantityMilli: input.quantity,
-        unitPriceCents: input.unitPrice,
-        taxable: input.taxable,
-        coreChargeCents: input.kind === "part" ? input.coreCharge : 0,
-        isDiagnosis: input.kind === "labor" && input.isDiagnosis,
+        ...lineFields(input),
         state: "draft",
         createdBy: user.id,
       })
@@ -106,15 +113,8 @@ export async function editLine(user: SessionUser, input: EditLineInput): Promise
     const [row] = await tx
       .update(estimateLines)
       .set({
-        kind: input.kind,
-        description: input.description,
-        partNumber: input.partNumber,
-        quantityMilli: input.quantity,
-        unitPriceCents: input.unitPrice,
-        taxable: input.taxable,
-        coreChargeCents: input.kind === "part" ? input.coreCharge : 0,
+        ...lineFields(input),
         concernId: input.concernId ?? null,
-        isDiagnosis: input.kind === "labor" && input.isDiagnosis,
         version: line.version + 1,
         state: revised.line.state,
         approvedByUserId: revised.line.approvedByUserId,
