@@ -4,5 +4,6 @@ import { isStaff } from "@/lib/auth/policy";
 
 export default async function Forbidden() {
   const user = await currentUser();
-  return <TurnedAway name={user?.name ?? null} home={user && isStaff(user) ? "/floor" : "/fleet"} />;
+  const staff = user !== null && isStaff(user);
+  return <TurnedAway name={user?.name ?? null} home={staff ? "/floor" : "/fleet"} staff={staff} />;
 }

@@ -1,7 +1,16 @@
 "use client";
 
-import Link from "next/link";
+import Link, { useLinkStatus } from "next/link";
 import { usePathname } from "next/navigation";
+
+/**
+ * The groups have no loading.tsx (a Suspense fallback would send 200 before a
+ * page can refuse with 403/404), so the link itself shows that it is on its way.
+ */
+function PendingHint() {
+  const { pending } = useLinkStatus();
+  return <span aria-hidden className={`ml-1 inline-block h-2 w-2 rounded-full bg-rust transition-opacity ${pending ? "animate-pulse opacity-100" : "opacity-0"}`} />;
+}
 
 export function NavLink({ href, children, exact = false }: { href: string; children: React.ReactNode; exact?: boolean }) {
   const pathname = usePathname();
@@ -15,6 +24,7 @@ export function NavLink({ href, children, exact = false }: { href: string; child
       }`}
     >
       {children}
+      <PendingHint />
     </Link>
   );
 }

@@ -7,11 +7,12 @@ import { nowIso } from "@/lib/ids";
 import type { AccountSettingsInput } from "@/lib/validation/account";
 import { recordAudit } from "./audit";
 import { budgetUsedCents, currentFiscalYear } from "./estimate-context";
+import { scopedTo } from "./scope";
 
-/** Every fleet account with its budget used this fiscal year (shop staff only). */
-export async function listAccountsWithBudget() {
+/** The fleet accounts the caller may see (every one for staff, their own for fleet people), with budget used this fiscal year. */
+export async function listAccountsWithBudget(user: Pick<SessionUser, "role" | "accountId">) {
   const db = getDb();
-  const rows = await db.select().from(accounts).orderBy(asc(accounts.name));
+  const rows = await db.select().from(accounts).where(scopedTo(accounts.id, user)).orderBy(asc(accounts.name));
   return Promise.all(
     rows.map(async (a) => {
       const bounds = currentFiscalYear(a);
@@ -20,9 +21,10 @@ export async function listAccountsWithBudget() {
   );
 }
 
-export async function accountSettingsPage(accountId: string) {
+/** One account's settings page, or null when it does not exist or is outside the caller's scope. */
+export async function accountSettingsPage(user: Pick<SessionUser, "role" | "accountId">, accountId: string) {
   const db = getDb();
-  const [account] = await db.select().from(accounts).where(eq(accounts.id, accountId)).limit(1);
+  const [account] = await db.select().from(accounts).where(and(eq(accounts.id, accountId), scopedTo(accounts.id, user))).limit(1);
   if (!account) return null;
   const bounds = currentFiscalYear(account);
   const [people, changes, used] = await Promise.all([

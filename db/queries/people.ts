@@ -7,12 +7,15 @@ import { conflict, invalidInput, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
 import type { NewPersonInput } from "@/lib/validation/people";
 import { recordAudit } from "./audit";
+import { scopedTo } from "./scope";
 
-export async function listPeople() {
+/** The people who sign in: everyone for the shop, one account's people for a fleet user. */
+export async function listPeople(user: Pick<SessionUser, "role" | "accountId">) {
   return getDb()
     .select({ id: users.id, name: users.name, email: users.email, role: users.role, accountId: users.accountId, accountName: accounts.name, signingLimitCents: users.signingLimitCents, active: users.active, lastSignInAt: users.lastSignInAt })
     .from(users)
     .leftJoin(accounts, eq(accounts.id, users.accountId))
+    .where(scopedTo(users.accountId, user))
     .orderBy(asc(accounts.name), asc(users.role), asc(users.name));
 }
 

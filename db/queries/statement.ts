@@ -12,6 +12,7 @@ import { addDays } from "@/lib/dates";
 import type { CsvCredit, CsvInvoice, CsvPayment } from "@/lib/invoices/csv";
 import { addAgeing, ageBalances, emptyAgeing, type Ageing } from "@/lib/receivables/ageing";
 import { openInvoices, paymentsOfAccount } from "./invoices";
+import { scopedTo } from "./scope";
 
 /** The account a user may read a statement of: their own, or any for the shop; null when not allowed (404). */
 async function readableAccount(user: Pick<SessionUser, "role" | "accountId">, accountId: string) {
@@ -92,13 +93,13 @@ export async function accountStatement(
 export type Statement = NonNullable<Awaited<ReturnType<typeof accountStatement>>>;
 
 /** The shop's receivables: every account's open balances in the same buckets, and card payments held for review. */
-export async function receivables(now = new Date()) {
+export async function receivables(user: Pick<SessionUser, "role" | "accountId">, now = new Date()) {
   const timeZone = env().APP_TIME_ZONE;
   const asOf = calendarDate(now, timeZone);
   const db = getDb();
   const [open, accountRows, held] = await Promise.all([
-    openInvoices(null),
-    db.select({ id: accounts.id, name: accounts.name }).from(accounts).orderBy(accounts.name),
+    openInvoices(accountScope(user)),
+    db.select({ id: accounts.id, name: accounts.name }).from(accounts).where(scopedTo(accounts.id, user)).orderBy(accounts.name),
     db
       .select({
         id: payments.id,
@@ -112,7 +113,7 @@ export async function receivables(now = new Date()) {
       .from(payments)
       .innerJoin(invoices, eq(invoices.id, payments.invoiceId))
       .innerJoin(accounts, eq(accounts.id, payments.accountId))
-      .where(and(eq(payments.flagged, true), eq(payments.applied, false)))
+      .where(and(eq(payments.flagged, true), eq(payments.applied, false), scopedTo(payments.accountId, user)))
       .orderBy(payments.receivedAt),
   ]);
   let total: Ageing = emptyAgeing();

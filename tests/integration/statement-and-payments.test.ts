@@ -19,7 +19,7 @@ import { HttpError } from "@/lib/http/problem";
 import { CSV_COLUMNS } from "@/lib/invoices/csv";
 import { notifyPaymentReceived } from "@/lib/mail/invoice-notices";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
-import { call, userByEmail } from "./helpers/app";
+import { call, sessionUser, userByEmail } from "./helpers/app";
 import { asUser, setLines } from "./helpers/billing";
 
 let smtp: FakeSmtp;
@@ -154,7 +154,7 @@ describe("the account statement (GET /api/v1/accounts/:id/statement)", () => {
   it("the shop's receivables show the same ageing for the account", async () => {
     vi.useFakeTimers({ toFake: ["Date"] });
     vi.setSystemTime(new Date("2026-07-01T03:00:00.000Z"));
-    const r = await receivables();
+    const r = await receivables(await sessionUser("writer@quarry-road.example"));
     const mine = r.accounts.find((a) => a.accountId === accountId);
     expect(mine?.ageing).toEqual({ current: 30_000, days1to30: 70_000, days31to60: 40_000, days61to90: 50_000, over90: 25_000 });
     const sum = r.accounts.reduce((s, a) => s + a.totalDueCents, 0);

@@ -5,12 +5,13 @@ import { PageHeader } from "@/components/ui/page-header";
 import { getAccountName } from "@/db/queries/settings";
 import { listUnits } from "@/db/queries/units";
 import { listOpenWorkOrders } from "@/db/queries/work-order-list";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Your units" };
 
 export default async function FleetHome() {
-  const user = await requireUser();
+  const user = await requirePageRole(CAN.fleet);
   const [units, orders, accountName] = await Promise.all([
     listUnits(user, { limit: 200 }),
     listOpenWorkOrders(user, { limit: 200 }),

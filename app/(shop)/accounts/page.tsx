@@ -4,13 +4,14 @@ import { BudgetBar } from "@/components/accounts/budget-bar";
 import { Money } from "@/components/ui/money";
 import { PageHeader } from "@/components/ui/page-header";
 import { listAccountsWithBudget } from "@/db/queries/accounts";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Accounts" };
 
 export default async function AccountsPage() {
-  await requireUser();
-  const rows = await listAccountsWithBudget();
+  const user = await requirePageRole(CAN.manageAccounts);
+  const rows = await listAccountsWithBudget(user);
   return (
     <>
       <PageHeader title="Fleet accounts" kicker="Limits each fleet has authorised" />

@@ -2,12 +2,13 @@ import type { Metadata } from "next";
 import { FloorBoard } from "@/components/floor/floor-board";
 import { PageHeader } from "@/components/ui/page-header";
 import { listOpenWorkOrders } from "@/db/queries/work-order-list";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Floor" };
 
 export default async function FloorPage() {
-  const user = await requireUser();
+  const user = await requirePageRole(CAN.shopStaff);
   const initial = await listOpenWorkOrders(user, { limit: 200 });
   return (
     <>

@@ -1,14 +1,13 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { forbidden } from "next/navigation";
 import { InvoiceList } from "@/components/invoices/invoice-list";
 import { Card, CardTitle } from "@/components/ui/card";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { readyToInvoice } from "@/db/queries/invoice-pages";
 import { listInvoices } from "@/db/queries/invoices";
-import { requireUser } from "@/lib/auth/current-user";
-import { CAN, hasRole } from "@/lib/auth/policy";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 import { PAYMENT_STATE_LABELS, type PaymentState } from "@/lib/invoices/balance";
 
@@ -17,8 +16,7 @@ export const metadata: Metadata = { title: "Invoices" };
 const FILTERS: (PaymentState | "all")[] = ["all", "open", "partly_paid", "paid", "void"];
 
 export default async function ShopInvoicesPage({ searchParams }: { searchParams: Promise<{ state?: string }> }) {
-  const user = await requireUser();
-  if (!hasRole(user, CAN.issueInvoices)) forbidden();
+  const user = await requirePageRole(CAN.issueInvoices);
   const { state } = await searchParams;
   const filter = FILTERS.find((f) => f === state) ?? "all";
   const status = filter === "partly_paid" ? "open" : filter === "all" ? undefined : filter;

@@ -1,22 +1,20 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { forbidden } from "next/navigation";
 import { AgeingSummary } from "@/components/invoices/ageing-summary";
 import { Card, CardTitle } from "@/components/ui/card";
 import { Money } from "@/components/ui/money";
 import { PageHeader } from "@/components/ui/page-header";
 import { receivables } from "@/db/queries/statement";
-import { requireUser } from "@/lib/auth/current-user";
-import { CAN, hasRole } from "@/lib/auth/policy";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 import { formatDate } from "@/lib/format";
 import { AGEING_BUCKETS, AGEING_LABELS } from "@/lib/receivables/ageing";
 
 export const metadata: Metadata = { title: "Receivables" };
 
 export default async function ReceivablesPage() {
-  const user = await requireUser();
-  if (!hasRole(user, CAN.issueInvoices)) forbidden();
-  const r = await receivables();
+  const user = await requirePageRole(CAN.issueInvoices);
+  const r = await receivables(user);
   return (
     <>
       <PageHeader title="Receivables" kicker={`Owed to the shop as of ${formatDate(r.asOf)}`} />

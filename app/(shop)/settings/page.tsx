@@ -1,5 +1,4 @@
 import type { Metadata } from "next";
-import { forbidden } from "next/navigation";
 import { asc } from "drizzle-orm";
 import { LaborRateRow } from "@/components/settings/labor-rate-row";
 import { ShopSettingsForm } from "@/components/settings/shop-settings-form";
@@ -8,15 +7,15 @@ import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db/client";
 import { getShopSettings } from "@/db/queries/settings";
 import { laborRates } from "@/db/schema";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Shop settings" };
 
 const dollars = (cents: number) => (cents / 100).toFixed(2);
 
 export default async function ShopSettingsPage() {
-  const user = await requireUser();
-  if (user.role !== "owner") forbidden();
+  const user = await requirePageRole(CAN.manageShop);
   const [s, rates] = await Promise.all([getShopSettings(), getDb().select().from(laborRates).orderBy(asc(laborRates.position))]);
   return (
     <>

@@ -8,14 +8,14 @@ import { PageHeader } from "@/components/ui/page-header";
 import { waitingForPo } from "@/db/queries/invoice-pages";
 import { listInvoices } from "@/db/queries/invoices";
 import { getAccountName } from "@/db/queries/settings";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 
 export const metadata: Metadata = { title: "Invoices" };
 
 export default async function FleetInvoicesPage() {
-  const user = await requireUser();
+  const user = await requirePageRole(CAN.pay);
   const [{ invoices }, needPo, accountName] = await Promise.all([
     listInvoices(user, { limit: 200 }),
     hasRole(user, CAN.enterPoNumber) ? waitingForPo(user) : Promise.resolve([]),

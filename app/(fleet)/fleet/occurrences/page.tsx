@@ -2,13 +2,14 @@ import type { Metadata } from "next";
 import { FleetWatchList } from "@/components/occurrences/fleet-watch-list";
 import { PageHeader } from "@/components/ui/page-header";
 import { getAccountName } from "@/db/queries/settings";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Occurrence log" };
 
 /** Every fault the shop has asked this account to watch for, one tap from logging it. */
 export default async function FleetOccurrencesPage() {
-  const user = await requireUser();
+  const user = await requirePageRole(CAN.fleet);
   const accountName = await getAccountName(user.accountId ?? "");
   return (
     <>

@@ -1,17 +1,17 @@
 import type { Metadata } from "next";
-import { forbidden, notFound } from "next/navigation";
+import { notFound } from "next/navigation";
 import { PrintButton } from "@/components/invoices/print-button";
 import { StatementView } from "@/components/invoices/statement-view";
 import { PageHeader } from "@/components/ui/page-header";
 import { accountStatement } from "@/db/queries/statement";
-import { requireUser } from "@/lib/auth/current-user";
-import { CAN, hasRole } from "@/lib/auth/policy";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Statement" };
 
 export default async function FleetStatementPage() {
-  const user = await requireUser();
-  if (!hasRole(user, CAN.readStatement) || !user.accountId) forbidden();
+  const user = await requirePageRole(CAN.readStatement);
+  if (!user.accountId) notFound();
   const statement = await accountStatement(user, user.accountId, {});
   if (!statement) notFound();
   return (

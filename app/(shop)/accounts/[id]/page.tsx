@@ -6,7 +6,7 @@ import { SigningLimitRow } from "@/components/accounts/signing-limit-row";
 import { Card, CardTitle } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { accountSettingsPage } from "@/db/queries/accounts";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { ROLE_LABELS } from "@/lib/domain";
 import { describeChange } from "@/lib/audit-format";
@@ -18,8 +18,8 @@ const dollars = (cents: number | null) => (cents === null ? "" : (cents / 100).t
 
 export default async function AccountPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
-  const user = await requireUser();
-  const page = await accountSettingsPage(id);
+  const user = await requirePageRole(CAN.manageAccounts);
+  const page = await accountSettingsPage(user, id);
   if (!page) notFound();
   const { account: a } = page;
   const canEdit = hasRole(user, CAN.manageAccounts);

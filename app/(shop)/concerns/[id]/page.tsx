@@ -5,7 +5,8 @@ import { IntermittentConcernCard } from "@/components/occurrences/intermittent-c
 import { Card } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { findConcern, openVisitOf } from "@/db/queries/intermittent-concerns";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 import { workOrderLabel } from "@/lib/domain";
 
 export const metadata: Metadata = { title: "Occurrence log" };
@@ -13,7 +14,7 @@ export const metadata: Metadata = { title: "Occurrence log" };
 /** One concern's page: where the occurrence e-mail links. It spans visits, so it lives on its own. */
 export default async function ConcernPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
-  const user = await requireUser();
+  const user = await requirePageRole(CAN.shopStaff);
   const concern = await findConcern(user, id);
   if (!concern) notFound();
   const visit = await openVisitOf(concern.unitId);

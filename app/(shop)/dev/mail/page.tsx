@@ -1,8 +1,8 @@
 import type { Metadata } from "next";
-import { forbidden } from "next/navigation";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 import { formatDateTime } from "@/lib/format";
 
@@ -20,8 +20,7 @@ interface Caught {
 
 /** The owner's view of the local mail catcher: what Cotter would have e-mailed, with no mail server set up. */
 export default async function CaughtMailPage() {
-  const user = await requireUser();
-  if (user.role !== "owner") forbidden();
+  const user = await requirePageRole(CAN.manageShop);
   const e = env();
   if (e.SMTP_URL) {
     return (

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { forbidden, notFound } from "next/navigation";
+import { notFound } from "next/navigation";
 import { CreditNoteForm } from "@/components/invoices/credit-note-form";
 import { HeldPaymentActions } from "@/components/invoices/held-payment-actions";
 import { InvoiceDocument } from "@/components/invoices/invoice-document";
@@ -11,8 +11,8 @@ import { buttonClass } from "@/components/ui/button";
 import { Card, CardTitle } from "@/components/ui/card";
 import { Money } from "@/components/ui/money";
 import { getInvoiceDetail } from "@/db/queries/invoices";
-import { requireUser } from "@/lib/auth/current-user";
-import { CAN, hasRole } from "@/lib/auth/policy";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
 
@@ -20,8 +20,7 @@ export const metadata: Metadata = { title: "Invoice" };
 
 export default async function ShopInvoicePage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
-  const user = await requireUser();
-  if (!hasRole(user, CAN.issueInvoices)) forbidden();
+  const user = await requirePageRole(CAN.issueInvoices);
   const inv = await getInvoiceDetail(user, id);
   if (!inv) notFound();
   const timeZone = env().APP_TIME_ZONE;

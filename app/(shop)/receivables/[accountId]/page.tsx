@@ -1,18 +1,17 @@
 import type { Metadata } from "next";
-import { forbidden, notFound } from "next/navigation";
+import { notFound } from "next/navigation";
 import { PrintButton } from "@/components/invoices/print-button";
 import { StatementView } from "@/components/invoices/statement-view";
 import { PageHeader } from "@/components/ui/page-header";
 import { accountStatement } from "@/db/queries/statement";
-import { requireUser } from "@/lib/auth/current-user";
-import { CAN, hasRole } from "@/lib/auth/policy";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Account statement" };
 
 export default async function ShopStatementPage({ params }: { params: Promise<{ accountId: string }> }) {
   const { accountId } = await params;
-  const user = await requireUser();
-  if (!hasRole(user, CAN.issueInvoices)) forbidden();
+  const user = await requirePageRole(CAN.issueInvoices);
   const statement = await accountStatement(user, accountId, {});
   if (!statement) notFound();
   return (

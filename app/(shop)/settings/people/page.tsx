@@ -1,5 +1,4 @@
 import type { Metadata } from "next";
-import { forbidden } from "next/navigation";
 import { asc } from "drizzle-orm";
 import { AddPersonForm } from "@/components/settings/add-person-form";
 import { PersonActiveButton } from "@/components/settings/person-active-button";
@@ -8,17 +7,18 @@ import { Money } from "@/components/ui/money";
 import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db/client";
 import { listPeople } from "@/db/queries/people";
+import { scopedTo } from "@/db/queries/scope";
 import { accounts } from "@/db/schema";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 import { ROLE_LABELS } from "@/lib/domain";
 import { formatDateTime } from "@/lib/format";
 
 export const metadata: Metadata = { title: "People" };
 
 export default async function PeoplePage() {
-  const user = await requireUser();
-  if (user.role !== "owner") forbidden();
-  const [people, accountRows] = await Promise.all([listPeople(), getDb().select({ id: accounts.id, name: accounts.name }).from(accounts).orderBy(asc(accounts.name))]);
+  const user = await requirePageRole(CAN.manageShop);
+  const [people, accountRows] = await Promise.all([listPeople(user), getDb().select({ id: accounts.id, name: accounts.name }).from(accounts).where(scopedTo(accounts.id, user)).orderBy(asc(accounts.name))]);
   return (
     <>
       <PageHeader title="People who sign in" kicker="Owner only" />

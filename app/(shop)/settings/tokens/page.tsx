@@ -2,12 +2,13 @@ import type { Metadata } from "next";
 import { ApiTokens } from "@/components/settings/api-tokens";
 import { PageHeader } from "@/components/ui/page-header";
 import { listMyTokens } from "@/db/queries/api-tokens";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "API tokens" };
 
 export default async function TokensPage() {
-  const user = await requireUser();
+  const user = await requirePageRole(CAN.anyone);
   const tokens = await listMyTokens(user);
   return (
     <>

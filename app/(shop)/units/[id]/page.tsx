@@ -11,7 +11,8 @@ import { MeterReadingForm } from "@/components/units/meter-reading-form";
 import { UnitFacts } from "@/components/units/unit-facts";
 import { WorkOrderHistory } from "@/components/units/work-order-history";
 import { getUnitDetail } from "@/db/queries/units";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 import { workOrderLabel } from "@/lib/domain";
 import { calendarDate } from "@/lib/format";
 
@@ -19,7 +20,7 @@ export const metadata: Metadata = { title: "Unit" };
 
 export default async function ShopUnitPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
-  const user = await requireUser();
+  const user = await requirePageRole(CAN.shopStaff);
   const detail = await getUnitDetail(user, id);
   if (!detail) notFound();
   const { unit, openWorkOrder, readings, history, deferred } = detail;

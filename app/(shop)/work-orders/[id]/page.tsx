@@ -13,14 +13,14 @@ import { StatusMover } from "@/components/work-order/status-mover";
 import { Timeline } from "@/components/work-order/timeline";
 import { WorkOrderHeader } from "@/components/work-order/wo-header";
 import { loadShopWorkOrderPage } from "@/db/queries/shop-work-order-page";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Work order" };
 
 export default async function ShopWorkOrderPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
-  const user = await requireUser();
+  const user = await requirePageRole(CAN.shopStaff);
   const page = await loadShopWorkOrderPage(user, id);
   if (!page) notFound();
   const { view } = page;

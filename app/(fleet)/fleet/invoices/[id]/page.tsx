@@ -7,7 +7,7 @@ import { PrintButton } from "@/components/invoices/print-button";
 import { buttonClass } from "@/components/ui/button";
 import { latestCheckout } from "@/db/queries/checkout";
 import { getInvoiceDetail } from "@/db/queries/invoices";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 
@@ -21,7 +21,7 @@ export default async function FleetInvoicePage({
   searchParams: Promise<{ checkout?: string }>;
 }) {
   const [{ id }, { checkout }] = await Promise.all([params, searchParams]);
-  const user = await requireUser();
+  const user = await requirePageRole(CAN.pay);
   // Scoped to the user's account: another account's invoice is simply not found.
   const inv = await getInvoiceDetail(user, id);
   if (!inv) notFound();

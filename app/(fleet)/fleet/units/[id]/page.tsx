@@ -11,14 +11,15 @@ import { UnitFacts } from "@/components/units/unit-facts";
 import { WorkOrderHistory } from "@/components/units/work-order-history";
 import { currentVisit } from "@/db/queries/finding-reads";
 import { getUnitDetail } from "@/db/queries/units";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 import { calendarDate } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Unit" };
 
 export default async function FleetUnitPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
-  const user = await requireUser();
+  const user = await requirePageRole(CAN.fleet);
   // Scoped to the user's account: another account's unit is simply not found.
   const [detail, visit] = await Promise.all([getUnitDetail(user, id), currentVisit(user, id)]);
   if (!detail || !visit) notFound();

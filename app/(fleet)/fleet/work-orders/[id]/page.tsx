@@ -5,14 +5,15 @@ import { WorkOrderHeader } from "@/components/work-order/wo-header";
 import { getDb } from "@/db/client";
 import { accounts } from "@/db/schema";
 import { workOrderView } from "@/db/queries/work-order-view";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 import { eq } from "drizzle-orm";
 
 export const metadata: Metadata = { title: "Estimate" };
 
 export default async function FleetWorkOrderPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
-  const user = await requireUser();
+  const user = await requirePageRole(CAN.fleet);
   // Scoped: another account's work order is simply not found.
   const view = await workOrderView(user, id);
   if (!view) notFound();

@@ -4,7 +4,8 @@ import { notFound } from "next/navigation";
 import { FleetOccurrenceLog } from "@/components/occurrences/fleet-occurrence-log";
 import { PageHeader } from "@/components/ui/page-header";
 import { listOccurrences } from "@/db/queries/occurrences";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 import { HttpError } from "@/lib/http/problem";
 
 export const metadata: Metadata = { title: "Log an occurrence" };
@@ -12,7 +13,7 @@ export const metadata: Metadata = { title: "Log an occurrence" };
 /** Phone-first: a driver or foreman records the fault the moment it happens. */
 export default async function FleetOccurrenceLogPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
-  const user = await requireUser();
+  const user = await requirePageRole(CAN.fleet);
   // Scoped to the user's account: another account's unit is simply not found.
   const log = await listOccurrences(user, id, { limit: 200 }).catch((error: unknown) => {
     if (error instanceof HttpError && error.status === 404) return null;

@@ -1,19 +1,18 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { forbidden, notFound } from "next/navigation";
+import { notFound } from "next/navigation";
 import { FindingForm } from "@/components/findings/form/finding-form";
 import { EmptyState } from "@/components/ui/empty-state";
 import { findWorkOrder, loadConcerns } from "@/db/queries/work-order-detail";
-import { requireUser } from "@/lib/auth/current-user";
-import { CAN, hasRole } from "@/lib/auth/policy";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 import { workOrderLabel } from "@/lib/domain";
 
 export const metadata: Metadata = { title: "Add a finding" };
 
 export default async function NewFindingPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params;
-  const user = await requireUser();
-  if (!hasRole(user, CAN.postFindings)) forbidden();
+  const user = await requirePageRole(CAN.postFindings);
   const wo = await findWorkOrder(user, id);
   if (!wo) notFound();
   const concerns = await loadConcerns(wo.id);

@@ -1,1 +1,0 @@
-export { GroupLoading as default } from "@/components/shell/group-loading";
