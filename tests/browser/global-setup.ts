@@ -18,6 +18,10 @@ declare module "vitest" {
     baseUrl: string;
     mailUrl: string;
     paymentsUrl: string;
+    /** The app's database file, for tests that read ids or check that nothing changed. */
+    dbUrl: string;
+    /** The server's NEXTAUTH_SECRET, for tests that mint a session cookie instead of signing in. */
+    authSecret: string;
   }
 }
 
@@ -75,6 +79,7 @@ export default async function setup(project: TestProject) {
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   const webhookSecret = "whsec_browser_tests";
+  const authSecret = "browser-tests-secret-browser-tests-secret";
   // Retries come quickly here, in the same rising shape as the service's.
   const payments = await startFakeStripe({ port: 0, webhookUrl: `${baseUrl}/api/webhooks/stripe`, webhookSecret, retryDelaysMs: [500, 2_000, 5_000] });
   const server = spawn(path.join(root, "node_modules", ".bin", "next"), ["start", "-p", String(port), "-H", "127.0.0.1"], {
@@ -84,7 +89,7 @@ export default async function setup(project: TestProject) {
       NODE_ENV: "production",
       DATABASE_URL: dbUrl,
       NEXTAUTH_URL: baseUrl,
-      NEXTAUTH_SECRET: "browser-tests-secret-browser-tests-secret",
+      NEXTAUTH_SECRET: authSecret,
       SMTP_URL: `smtp://127.0.0.1:${smtp.smtpPort}`,
       STRIPE_SECRET_KEY: "",
       FAKE_STRIPE_PORT: String(payments.port),
@@ -99,6 +104,8 @@ export default async function setup(project: TestProject) {
   project.provide("baseUrl", baseUrl);
   project.provide("mailUrl", `http://127.0.0.1:${smtp.httpPort}`);
   project.provide("paymentsUrl", payments.url);
+  project.provide("dbUrl", dbUrl);
+  project.provide("authSecret", authSecret);
 
   return async () => {
     server.kill("SIGTERM");

@@ -17,8 +17,8 @@ export const metadata: Metadata = { title: "Account settings" };
 const dollars = (cents: number | null) => (cents === null ? "" : (cents / 100).toFixed(2));
 
 export default async function AccountPage({ params }: { params: Promise<{ id: string }> }) {
-  const { id } = await params;
   const user = await requirePageRole(CAN.manageAccounts);
+  const { id } = await params;
   const page = await accountSettingsPage(user, id);
   if (!page) notFound();
   const { account: a } = page;

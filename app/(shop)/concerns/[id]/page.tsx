@@ -13,8 +13,8 @@ export const metadata: Metadata = { title: "Occurrence log" };
 
 /** One concern's page: where the occurrence e-mail links. It spans visits, so it lives on its own. */
 export default async function ConcernPage({ params }: { params: Promise<{ id: string }> }) {
-  const { id } = await params;
   const user = await requirePageRole(CAN.shopStaff);
+  const { id } = await params;
   const concern = await findConcern(user, id);
   if (!concern) notFound();
   const visit = await openVisitOf(concern.unitId);

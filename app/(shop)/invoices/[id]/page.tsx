@@ -19,8 +19,8 @@ import { calendarDate } from "@/lib/format";
 export const metadata: Metadata = { title: "Invoice" };
 
 export default async function ShopInvoicePage({ params }: { params: Promise<{ id: string }> }) {
-  const { id } = await params;
   const user = await requirePageRole(CAN.issueInvoices);
+  const { id } = await params;
   const inv = await getInvoiceDetail(user, id);
   if (!inv) notFound();
   const timeZone = env().APP_TIME_ZONE;

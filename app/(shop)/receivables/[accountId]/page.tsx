@@ -10,8 +10,8 @@ import { CAN } from "@/lib/auth/policy";
 export const metadata: Metadata = { title: "Account statement" };
 
 export default async function ShopStatementPage({ params }: { params: Promise<{ accountId: string }> }) {
-  const { accountId } = await params;
   const user = await requirePageRole(CAN.issueInvoices);
+  const { accountId } = await params;
   const statement = await accountStatement(user, accountId, {});
   if (!statement) notFound();
   return (

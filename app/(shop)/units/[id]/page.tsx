@@ -19,8 +19,8 @@ import { calendarDate } from "@/lib/format";
 export const metadata: Metadata = { title: "Unit" };
 
 export default async function ShopUnitPage({ params }: { params: Promise<{ id: string }> }) {
-  const { id } = await params;
   const user = await requirePageRole(CAN.shopStaff);
+  const { id } = await params;
   const detail = await getUnitDetail(user, id);
   if (!detail) notFound();
   const { unit, openWorkOrder, readings, history, deferred } = detail;

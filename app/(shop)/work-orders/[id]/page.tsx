@@ -19,8 +19,8 @@ import { CAN, hasRole } from "@/lib/auth/policy";
 export const metadata: Metadata = { title: "Work order" };
 
 export default async function ShopWorkOrderPage({ params }: { params: Promise<{ id: string }> }) {
-  const { id } = await params;
   const user = await requirePageRole(CAN.shopStaff);
+  const { id } = await params;
   const page = await loadShopWorkOrderPage(user, id);
   if (!page) notFound();
   const { view } = page;

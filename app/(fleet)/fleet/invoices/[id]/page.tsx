@@ -20,8 +20,8 @@ export default async function FleetInvoicePage({
   params: Promise<{ id: string }>;
   searchParams: Promise<{ checkout?: string }>;
 }) {
-  const [{ id }, { checkout }] = await Promise.all([params, searchParams]);
   const user = await requirePageRole(CAN.pay);
+  const [{ id }, { checkout }] = await Promise.all([params, searchParams]);
   // Scoped to the user's account: another account's invoice is simply not found.
   const inv = await getInvoiceDetail(user, id);
   if (!inv) notFound();

@@ -18,8 +18,8 @@ import { calendarDate } from "@/lib/format";
 export const metadata: Metadata = { title: "Unit" };
 
 export default async function FleetUnitPage({ params }: { params: Promise<{ id: string }> }) {
-  const { id } = await params;
   const user = await requirePageRole(CAN.fleet);
+  const { id } = await params;
   // Scoped to the user's account: another account's unit is simply not found.
   const [detail, visit] = await Promise.all([getUnitDetail(user, id), currentVisit(user, id)]);
   if (!detail || !visit) notFound();

@@ -12,8 +12,8 @@ import { eq } from "drizzle-orm";
 export const metadata: Metadata = { title: "Estimate" };
 
 export default async function FleetWorkOrderPage({ params }: { params: Promise<{ id: string }> }) {
-  const { id } = await params;
   const user = await requirePageRole(CAN.fleet);
+  const { id } = await params;
   // Scoped: another account's work order is simply not found.
   const view = await workOrderView(user, id);
   if (!view) notFound();

@@ -12,8 +12,8 @@ export const metadata: Metadata = { title: "Log an occurrence" };
 
 /** Phone-first: a driver or foreman records the fault the moment it happens. */
 export default async function FleetOccurrenceLogPage({ params }: { params: Promise<{ id: string }> }) {
-  const { id } = await params;
   const user = await requirePageRole(CAN.fleet);
+  const { id } = await params;
   // Scoped to the user's account: another account's unit is simply not found.
   const log = await listOccurrences(user, id, { limit: 200 }).catch((error: unknown) => {
     if (error instanceof HttpError && error.status === 404) return null;

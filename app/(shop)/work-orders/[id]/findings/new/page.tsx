@@ -11,8 +11,8 @@ import { workOrderLabel } from "@/lib/domain";
 export const metadata: Metadata = { title: "Add a finding" };
 
 export default async function NewFindingPage({ params }: { params: Promise<{ id: string }> }) {
-  const { id } = await params;
   const user = await requirePageRole(CAN.postFindings);
+  const { id } = await params;
   const wo = await findWorkOrder(user, id);
   if (!wo) notFound();
   const concerns = await loadConcerns(wo.id);

@@ -1,0 +1,75 @@
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { describe, expect, it } from "vitest";
+import { APP_DIR, appRoutes, fillPattern, paramKeys } from "@/tests/support/app-tree";
+
+// Pages anyone may open: signing in, and the root that sends people to their home page.
+const PUBLIC_PAGES = new Set(["/sign-in", "/"]);
+
+const ROOT = path.join(APP_DIR, "..");
+
+/** A page's source, following `export { default } from "…"` to the page it re-uses. */
+function pageSource(file: string): string {
+  const source = readFileSync(path.join(ROOT, file), "utf8");
+  const reexport = /export\s*\{[^}]*\bdefault\b[^}]*\}\s*from\s*"@\/([^"]+)"/.exec(source);
+  if (!reexport) return source;
+  const target = ["", ".tsx", ".ts"].map((ext) => `${reexport[1]}${ext}`).find((p) => {
+    try {
+      readFileSync(path.join(ROOT, p));
+      return true;
+    } catch {
+      return false;
+    }
+  });
+  if (!target) throw new Error(`${file} re-exports ${reexport[1]}, which does not exist`);
+  return pageSource(target);
+}
+
+/** The first thing the page awaits. */
+function firstAwait(source: string): string | undefined {
+  const body = source.slice(source.indexOf("export default"));
+  return /await\s+([^;]+)/.exec(body)?.[1]?.trim();
+}
+
+describe("the app tree", () => {
+  const routes = appRoutes();
+
+  it("finds pages and route handlers with their URL patterns and methods", () => {
+    const find = (pattern: string, kind: "page" | "api") => routes.find((r) => r.pattern === pattern && r.kind === kind);
+    expect(find("/fleet/invoices/[id]", "page")?.group).toBe("fleet");
+    expect(find("/work-orders/[id]", "page")?.group).toBe("shop");
+    expect(find("/api/v1/invoices/[id]/checkout", "api")?.methods).toEqual(["POST"]);
+    expect(find("/api/v1/units/[id]/occurrences", "api")?.methods.sort()).toEqual(["GET", "POST"]);
+    // `export { handler as GET, handler as POST }`
+    expect(find("/api/auth/[...nextauth]", "api")?.methods.sort()).toEqual(["GET", "POST"]);
+  });
+
+  it("every route handler exports at least one method", () => {
+    expect(routes.filter((r) => r.kind === "api" && r.methods.length === 0).map((r) => r.file)).toEqual([]);
+  });
+
+  it("fills dynamic segments by the folder before them, and stops on one nobody mapped", () => {
+    expect(paramKeys("/api/v1/units/[id]/occurrences/[occurrenceId]")).toEqual(["units/[id]", "occurrences/[occurrenceId]"]);
+    expect(fillPattern("/units/[id]/log", { "units/[id]": "u1" }, "map.ts")).toBe("/units/u1/log");
+    expect(() => fillPattern("/widgets/[widgetId]", {}, "map.ts")).toThrow(/"widgets\/\[widgetId\]".*map\.ts/);
+  });
+});
+
+describe("every page guards itself before it reads anything", () => {
+  const pages = appRoutes().filter((r) => r.kind === "page" && !PUBLIC_PAGES.has(r.pattern));
+
+  it.each(pages.map((p) => [p.pattern, p.file] as const))("%s calls requirePageRole first", (_pattern, file) => {
+    const source = pageSource(file);
+    expect(firstAwait(source), `${file}: the first await must be requirePageRole(CAN.…)`).toMatch(/^requirePageRole\(CAN\.\w+\)/);
+    // The old helpers check only that someone is signed in.
+    expect(source).not.toMatch(/\b(requireUser|currentUser)\(/);
+  });
+
+  it("the public pages are the only ones without a guard", () => {
+    const unguarded = appRoutes()
+      .filter((r) => r.kind === "page")
+      .filter((r) => !/requirePageRole\(/.test(pageSource(r.file)))
+      .map((r) => r.pattern);
+    expect(unguarded.sort()).toEqual([...PUBLIC_PAGES].sort());
+  });
+});
