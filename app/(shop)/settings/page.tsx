@@ -15,7 +15,7 @@ export const metadata: Metadata = { title: "Shop settings" };
 const dollars = (cents: number) => (cents / 100).toFixed(2);
 
 export default async function ShopSettingsPage() {
-  const user = await requirePageRole(CAN.manageShop);
+  await requirePageRole(CAN.manageShop);
   const [s, rates] = await Promise.all([getShopSettings(), getDb().select().from(laborRates).orderBy(asc(laborRates.position))]);
   return (
     <>

@@ -20,7 +20,7 @@ interface Caught {
 
 /** The owner's view of the local mail catcher: what Cotter would have e-mailed, with no mail server set up. */
 export default async function CaughtMailPage() {
-  const user = await requirePageRole(CAN.manageShop);
+  await requirePageRole(CAN.manageShop);
   const e = env();
   if (e.SMTP_URL) {
     return (
