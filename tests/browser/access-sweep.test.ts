@@ -2,12 +2,15 @@
 // first account's records by another account's approver, clerk and viewer and
 // by nobody: each must refuse with a real status and show none of the first
 // account's names, numbers or addresses (issue 9). Plain HTTP, no browser.
-import { count } from "drizzle-orm";
+import { count, eq } from "drizzle-orm";
+import { encode } from "next-auth/jwt";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { inject } from "vitest";
 import { openDatabase } from "@/db/client";
-import { auditLog, checkoutSessions, decisions, estimateLines, findings, meterReadings, occurrences, payments, photos, statusEvents } from "@/db/schema";
-import { appRoutes, fillPattern, type AppRoute } from "@/tests/support/app-tree";
+import { CAN } from "@/lib/auth/policy";
+import { SHOP_ROLES } from "@/lib/domain";
+import { auditLog, users, checkoutSessions, decisions, estimateLines, findings, meterReadings, occurrences, payments, photos, statusEvents } from "@/db/schema";
+import { appRoutes, fillPattern, pageSource, type AppRoute } from "@/tests/support/app-tree";
 import { accountIdOf, findLeak, idsOf, leakStrings, PARAM_MAP_FILE, paramValues, personasOf, removeSweepPeople, type Persona } from "./sweep/fixture";
 
 const FIRST = "Brennan Township Highway Department";
@@ -65,6 +68,12 @@ afterAll(async () => {
 
 const routes = appRoutes();
 
+async function staffCookie(role: (typeof SHOP_ROLES)[number]): Promise<string> {
+  const [u] = await db.select().from(users).where(eq(users.role, role)).limit(1);
+  if (!u) throw new Error(`no demo ${role}`);
+  return `next-auth.session-token=${await encode({ token: { sub: u.id, name: u.name, email: u.email }, secret: inject("authSecret") })}`;
+}
+
 describe("access sweep over every page and API route", () => {
   it("has something to sweep and strings to look for", () => {
     expect(routes.filter((r) => r.kind === "page").length).toBeGreaterThan(20);
@@ -92,6 +101,20 @@ describe("access sweep over every page and API route", () => {
         }
         const leak = findLeak(body, leaks);
         if (leak) failures.push(`${what} shows "${leak}" of ${FIRST}`);
+      }
+    }
+    expect(failures).toEqual([]);
+  });
+
+  it("every page refuses, with 403, the shop roles its guard leaves out", async () => {
+    const failures: string[] = [];
+    for (const route of routes.filter((r) => r.kind === "page" && r.group === "shop")) {
+      const key = /requirePageRole\(CAN\.(\w+)\)/.exec(pageSource(route.file))?.[1] as keyof typeof CAN | undefined;
+      if (!key) continue;
+      for (const role of SHOP_ROLES.filter((r) => !(CAN[key] as readonly string[]).includes(r))) {
+        const url = `${inject("baseUrl")}${fillPattern(route.pattern, values, PARAM_MAP_FILE)}`;
+        const res = await fetch(url, { headers: { cookie: await staffCookie(role) }, redirect: "manual" });
+        if (res.status !== 403) failures.push(`GET ${route.pattern} as ${role}: ${res.status}, expected 403`);
       }
     }
     expect(failures).toEqual([]);

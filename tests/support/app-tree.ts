@@ -1,4 +1,4 @@
-import { readdirSync, readFileSync, statSync } from "node:fs";
+import { existsSync, readdirSync, readFileSync, statSync } from "node:fs";
 import path from "node:path";
 
 /**
@@ -86,4 +86,15 @@ export function fillPattern(pattern: string, values: Record<string, string>, map
       return encodeURIComponent(value);
     })
     .join("/");
+}
+
+/** A page's source, following `export { default } from "@/…"` to the page it re-uses. */
+export function pageSource(file: string): string {
+  const root = path.join(APP_DIR, "..");
+  const source = readFileSync(path.join(root, file), "utf8");
+  const reexport = /export\s*\{[^}]*\bdefault\b[^}]*\}\s*from\s*"@\/([^"]+)"/.exec(source);
+  if (!reexport) return source;
+  const target = ["", ".tsx", ".ts"].map((ext) => `${reexport[1]}${ext}`).find((p) => existsSync(path.join(root, p)) && statSync(path.join(root, p)).isFile());
+  if (!target) throw new Error(`${file} re-exports ${reexport[1]}, which does not exist`);
+  return pageSource(target);
 }

@@ -1,29 +1,8 @@
-import { readFileSync } from "node:fs";
-import path from "node:path";
 import { describe, expect, it } from "vitest";
-import { APP_DIR, appRoutes, fillPattern, paramKeys } from "@/tests/support/app-tree";
+import { appRoutes, fillPattern, pageSource, paramKeys } from "@/tests/support/app-tree";
 
 // Pages anyone may open: signing in, and the root that sends people to their home page.
 const PUBLIC_PAGES = new Set(["/sign-in", "/"]);
-
-const ROOT = path.join(APP_DIR, "..");
-
-/** A page's source, following `export { default } from "…"` to the page it re-uses. */
-function pageSource(file: string): string {
-  const source = readFileSync(path.join(ROOT, file), "utf8");
-  const reexport = /export\s*\{[^}]*\bdefault\b[^}]*\}\s*from\s*"@\/([^"]+)"/.exec(source);
-  if (!reexport) return source;
-  const target = ["", ".tsx", ".ts"].map((ext) => `${reexport[1]}${ext}`).find((p) => {
-    try {
-      readFileSync(path.join(ROOT, p));
-      return true;
-    } catch {
-      return false;
-    }
-  });
-  if (!target) throw new Error(`${file} re-exports ${reexport[1]}, which does not exist`);
-  return pageSource(target);
-}
 
 /** The first thing the page awaits. */
 function firstAwait(source: string): string | undefined {
