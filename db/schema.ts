@@ -584,7 +584,8 @@ export const signInFailures = sqliteTable(
     email: text("email").notNull(),
     at: text("at").notNull(),
   },
-  (t) => [index("sign_in_failures_ip_at_idx").on(t.ip, t.at)],
+  // Counted per client address and per account (the e-mail typed): one index each.
+  (t) => [index("sign_in_failures_ip_at_idx").on(t.ip, t.at), index("sign_in_failures_email_at_idx").on(t.email, t.at)],
 );
 
 export const mailLog = sqliteTable(

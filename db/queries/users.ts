@@ -1,6 +1,6 @@
-import { and, count, eq, gte, isNull, min } from "drizzle-orm";
-import { getDb } from "@/db/client";
-import { apiTokens, signInFailures, users } from "@/db/schema";
+import { and, eq, isNull } from "drizzle-orm";
+import { getDb, writeTx } from "@/db/client";
+import { apiTokens, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { nowIso } from "@/lib/ids";
 
@@ -42,21 +42,5 @@ export async function findUserByTokenHash(tokenHash: string) {
 }
 
 export async function touchApiToken(tokenId: string): Promise<void> {
-  await getDb().update(apiTokens).set({ lastUsedAt: nowIso() }).where(eq(apiTokens.id, tokenId));
-}
-
-export async function recordSignIn(userId: string): Promise<void> {
-  await getDb().update(users).set({ lastSignInAt: nowIso() }).where(eq(users.id, userId));
-}
-
-export async function recordSignInFailure(ip: string, email: string): Promise<void> {
-  await getDb().insert(signInFailures).values({ ip, email: email.slice(0, 200), at: nowIso() });
-}
-
-export async function recentSignInFailures(ip: string, sinceIso: string) {
-  const [row] = await getDb()
-    .select({ n: count(), oldest: min(signInFailures.at) })
-    .from(signInFailures)
-    .where(and(eq(signInFailures.ip, ip), gte(signInFailures.at, sinceIso)));
-  return { failures: row?.n ?? 0, oldestAt: row?.oldest ?? null };
+  await writeTx((tx) => tx.update(apiTokens).set({ lastUsedAt: nowIso() }).where(eq(apiTokens.id, tokenId)));
 }

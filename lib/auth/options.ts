@@ -1,10 +1,12 @@
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { z } from "zod";
-import { findUserForSignIn, recentSignInFailures, recordSignIn, recordSignInFailure } from "@/db/queries/users";
+import { recentSignInFailures, recordSignIn, recordSignInFailure, recordThrottledSignIn } from "@/db/queries/sign-in";
+import { findUserForSignIn } from "@/db/queries/users";
 import { env } from "@/lib/env";
 import { verifyPassword } from "./password";
-import { THROTTLE_WINDOW_MINUTES, throttleVerdict } from "./throttle-policy";
+import { clientAddress } from "@/lib/http/client-address";
+import { lockedMessage, THROTTLE_WINDOW_MINUTES, throttleVerdict } from "./throttle-policy";
 
 const credentials = z.object({
   email: z.string().trim().toLowerCase().email().max(200),
@@ -13,13 +15,6 @@ const credentials = z.object({
 
 // A constant-cost comparison for unknown e-mails, so timing does not tell which addresses exist.
 const DUMMY_HASH = "$2b$10$/S6uB6B4lHqs246NOEfNHOO79rqFlQ0sdXJA.VdhQzGdeFZglS1zC";
-
-function clientIp(headers: Record<string, unknown> | undefined): string {
-  const forwarded = headers?.["x-forwarded-for"];
-  const first = typeof forwarded === "string" ? forwarded.split(",")[0]?.trim() : undefined;
-  const real = headers?.["x-real-ip"];
-  return first || (typeof real === "string" ? real : "") || "unknown";
-}
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
@@ -38,21 +33,27 @@ export function authOptions(): NextAuthOptions {
         async authorize(raw, req) {
           const parsed = credentials.safeParse(raw);
           if (!parsed.success) return null;
-          const ip = clientIp(req?.headers as Record<string, unknown> | undefined);
+          const headers = (req?.headers ?? {}) as Record<string, unknown>;
+          const header = (name: string) => (typeof headers[name] === "string" ? (headers[name] as string) : undefined);
+          const address = clientAddress(header, env().COTTER_TRUSTED_PROXIES);
+          const email = parsed.data.email;
           const since = new Date(Date.now() - THROTTLE_WINDOW_MINUTES * 60_000).toISOString();
-          const recent = await recentSignInFailures(ip, since);
-          const verdict = throttleVerdict(recent.failures, recent.oldestAt ? Date.now() - Date.parse(recent.oldestAt) : 0);
+          const recent = await recentSignInFailures(email, address, since);
+          const verdict = throttleVerdict(recent.account, recent.address);
+          const counts = { email, address, accountFailures: recent.account.failures, addressFailures: recent.address.failures };
           if (verdict.kind === "locked") {
-            throw new Error(
-              `Too many failed sign-ins from this address. Try again in ${verdict.retryAfterMinutes} minute${verdict.retryAfterMinutes === 1 ? "" : "s"}.`,
-            );
+            await recordThrottledSignIn({ ...counts, outcome: verdict.scope === "account" ? "locked_account" : "locked_address", delayMs: 0 });
+            throw new Error(lockedMessage(verdict));
           }
-          if (verdict.delayMs > 0) await sleep(verdict.delayMs);
+          if (verdict.delayMs > 0) {
+            await recordThrottledSignIn({ ...counts, outcome: "delayed", delayMs: verdict.delayMs });
+            await sleep(verdict.delayMs);
+          }
 
-          const user = await findUserForSignIn(parsed.data.email);
+          const user = await findUserForSignIn(email);
           const ok = await verifyPassword(parsed.data.password, user?.passwordHash ?? DUMMY_HASH);
           if (!user || !ok || !user.active) {
-            await recordSignInFailure(ip, parsed.data.email);
+            await recordSignInFailure(address, email);
             return null;
           }
           await recordSignIn(user.id);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { throttleVerdict } from "@/lib/auth/throttle-policy";
+import { lockedMessage, throttleVerdict } from "@/lib/auth/throttle-policy";
 import { checkMeterReading } from "@/lib/meters";
 import { safeNextPath } from "@/lib/http/safe-next";
 
@@ -23,15 +23,26 @@ describe("meter readings (common practice: odometers and hour meters only count 
 });
 
 describe("sign-in throttling policy", () => {
-  it("lets the first three failures through at once, then doubles the wait up to 8 s", () => {
-    expect([0, 1, 2].map((n) => throttleVerdict(n, 0))).toEqual(Array(3).fill({ kind: "allow", delayMs: 0 }));
-    expect([3, 4, 5, 6, 9].map((n) => throttleVerdict(n, 0))).toEqual(
-      [1000, 2000, 4000, 8000, 8000].map((delayMs) => ({ kind: "allow", delayMs })),
-    );
+  const n = (failures: number, msSinceOldest = 0) => ({ failures, msSinceOldest });
+  it("lets an account's first three failures through at once, then doubles the wait up to 8 s", () => {
+    expect([0, 1, 2].map((k) => throttleVerdict(n(k)))).toEqual(Array(3).fill({ kind: "allow", delayMs: 0 }));
+    expect([3, 4, 5, 6, 9].map((k) => throttleVerdict(n(k)))).toEqual([1000, 2000, 4000, 8000, 8000].map((delayMs) => ({ kind: "allow", delayMs })));
   });
-  it("locks after ten failures until the oldest leaves the 15-minute window", () => {
-    expect(throttleVerdict(10, 60_000)).toEqual({ kind: "locked", retryAfterMinutes: 14 });
-    expect(throttleVerdict(12, 14.5 * 60_000)).toEqual({ kind: "locked", retryAfterMinutes: 1 });
+  it("locks an account after ten failures until the oldest leaves the 15-minute window, whatever the address", () => {
+    expect(throttleVerdict(n(10, 60_000), n(0))).toEqual({ kind: "locked", scope: "account", retryAfterMinutes: 14 });
+    expect(throttleVerdict(n(12, 14.5 * 60_000), n(0))).toEqual({ kind: "locked", scope: "account", retryAfterMinutes: 1 });
+  });
+  it("counts an address far more leniently, so one office cannot lock its own people out", () => {
+    expect(throttleVerdict(n(0), n(10))).toEqual({ kind: "allow", delayMs: 1000 });
+    expect(throttleVerdict(n(0), n(49))).toEqual({ kind: "allow", delayMs: 8000 });
+    expect(throttleVerdict(n(0), n(50, 0))).toEqual({ kind: "locked", scope: "address", retryAfterMinutes: 15 });
+    // The longer wait of the two applies.
+    expect(throttleVerdict(n(4), n(11))).toEqual({ kind: "allow", delayMs: 2000 });
+  });
+  it("words a locked account the same whoever asks", () => {
+    expect(lockedMessage({ kind: "locked", scope: "account", retryAfterMinutes: 1 })).toBe(
+      "Too many failed sign-ins for this account. Try again in 1 minute, or ask the shop to reset your password.",
+    );
   });
 });
 

@@ -1,0 +1,1 @@
+CREATE INDEX `sign_in_failures_email_at_idx` ON `sign_in_failures` (`email`,`at`);
