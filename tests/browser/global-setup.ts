@@ -92,6 +92,9 @@ export default async function setup(project: TestProject) {
       NEXTAUTH_SECRET: authSecret,
       SMTP_URL: `smtp://127.0.0.1:${smtp.smtpPort}`,
       STRIPE_SECRET_KEY: "",
+      // A production server: the fakes only because we say so (lib/env.ts).
+      COTTER_USE_FAKE_STRIPE: "1",
+      COTTER_USE_FAKE_UPLOADTHING: "1",
       FAKE_STRIPE_PORT: String(payments.port),
       STRIPE_WEBHOOK_SECRET: webhookSecret,
       // No UPLOADTHING_TOKEN: the app points the SDK at the fake on this port (lib/uploads/config.ts).
