@@ -1,6 +1,7 @@
 import "@fontsource-variable/atkinson-hyperlegible-next";
 import "./globals.css";
 import type { Metadata, Viewport } from "next";
+import { connection } from "next/server";
 
 export const metadata: Metadata = {
   title: { default: "Cotter", template: "%s · Cotter" },
@@ -13,7 +14,9 @@ export const viewport: Viewport = {
   themeColor: "#f6f1e7",
 };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  // Every page renders per request, so each gets the nonce of its own CSP (proxy.ts); a prebuilt page would carry none.
+  await connection();
   return (
     <html lang="en">
       <body>{children}</body>

@@ -31,3 +31,10 @@ export function uploadThingConfig(): UploadThingConfig {
     fake: true,
   };
 }
+
+/** Origins the browser sends photo bytes to (the CSP's connect-src): the service's ingest hosts, or the local fake. */
+export function uploadOrigins(): string[] {
+  const c = uploadThingConfig();
+  if (c.fake && c.ingestUrl) return [new URL(c.ingestUrl).origin];
+  return ["https://*.ingest.uploadthing.com", "https://*.ufs.sh", "https://uploadthing.com"];
+}
