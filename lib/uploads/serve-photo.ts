@@ -1,6 +1,7 @@
 import { findPhotoFile } from "@/db/queries/photos";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { HttpError, notFound } from "@/lib/http/problem";
+import { sniffPhotoKind } from "./photo-rules";
 import { utApi } from "./ut-api";
 
 /**
@@ -22,10 +23,17 @@ export async function photoResponse(user: SessionUser, photoId: string, size: "f
   }
   if (upstream.status === 404) throw notFound("That photo's file");
   if (!upstream.ok || !upstream.body) throw unavailable();
-  return new Response(upstream.body, {
+  // The type comes from the bytes themselves, not from what storage or the row claims.
+  const bytes = new Uint8Array(await upstream.arrayBuffer());
+  const kind = sniffPhotoKind(bytes);
+  if (kind !== "jpeg" && kind !== "png" && kind !== "webp") {
+    console.error(`photo ${photoId}: stored file is not a servable image`);
+    throw unavailable();
+  }
+  return new Response(bytes, {
     headers: {
-      "content-type": photo.mime,
-      "content-disposition": `inline; filename="${size === "thumb" ? "thumb-" : ""}${photo.id}.jpg"`,
+      "content-type": `image/${kind}`,
+      "content-disposition": `inline; filename="${size === "thumb" ? "thumb-" : ""}${photo.id}.${kind === "jpeg" ? "jpg" : kind}"`,
       // A photo id always names the same clean bytes; only this browser may keep them.
       "cache-control": "private, max-age=3600",
       "x-content-type-options": "nosniff",

@@ -22,6 +22,8 @@ declare module "vitest" {
     dbUrl: string;
     /** The server's NEXTAUTH_SECRET, for tests that mint a session cookie instead of signing in. */
     authSecret: string;
+    /** The test build's directory, for tests that start a server of their own. */
+    distDir: string;
   }
 }
 
@@ -109,6 +111,7 @@ export default async function setup(project: TestProject) {
   project.provide("paymentsUrl", payments.url);
   project.provide("dbUrl", dbUrl);
   project.provide("authSecret", authSecret);
+  project.provide("distDir", distDir);
 
   return async () => {
     server.kill("SIGTERM");

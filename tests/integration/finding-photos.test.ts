@@ -2,7 +2,7 @@
 // handler and UTApi) against the local fake in mocks/uploadthing, then onto a finding, then back
 // out through the scoped photo routes. Sources: the SDK's protocol as the fake's own test names
 // it; PNG/JPEG signatures and the EXIF GPS pointer as in tests/unit/uploads/photo-rules.test.ts.
-import { readFile, readdir } from "node:fs/promises";
+import { readFile, readdir, writeFile } from "node:fs/promises";
 import { join } from "node:path";
 import { eq } from "drizzle-orm";
 import sharp from "sharp";
@@ -145,6 +145,21 @@ describe("a technician's finding with two photos, through the upload SDK and the
     const bytes = new Uint8Array(await full.arrayBuffer());
     expect((await sharp(bytes).metadata()).format).toBe("jpeg");
     expect(jpegHasGps(bytes)).toBe(false);
+  });
+
+  it("serves a photo by what its bytes are: a stored file that is not an image is never sent", async () => {
+    const wo = await workOrder(1044);
+    const [result] = await upload([await phonePhoto("hub-seal.jpg")], wo.id);
+    const data = result?.serverData as PhotoUploadResult;
+    if (!data.ok) throw new Error(data.error);
+    const [row] = await getDb().select({ fileKey: photos.fileKey, thumbKey: photos.thumbKey }).from(photos).where(eq(photos.id, data.photoId)).limit(1);
+    const owner = await sessionCookie("owner@quarry-road.example");
+    expect((await served(photoFull, data.photoId, owner)).headers.get("content-type")).toBe("image/jpeg");
+    // Storage now holds a page of HTML under the thumbnail's key.
+    await writeFile(join(uploads.storage, row!.thumbKey!), "<html><script>alert(1)</script></html>");
+    const thumb = await served(photoThumb, data.photoId, owner);
+    expect(thumb.status).toBe(502);
+    expect(thumb.headers.get("content-type")).toBe("application/problem+json");
   });
 
   it("works the same under `next dev`, where the fake streams the callback back to the route handler", async () => {
