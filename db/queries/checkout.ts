@@ -3,14 +3,22 @@ import { getDb, writeTx } from "@/db/client";
 import { checkoutSessions, invoices, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { invoiceLabel, workOrderLabel } from "@/lib/domain";
-import { conflict, notFound } from "@/lib/http/problem";
+import { conflict, HttpError, notFound } from "@/lib/http/problem";
 import { balanceOf } from "@/lib/invoices/balance";
 import { appUrl } from "@/lib/mail/send";
-import { createCheckoutSession, retrieveCheckoutSession } from "@/lib/payments/stripe";
+import { createCheckoutSession, isServiceUnavailable, retrieveCheckoutSession } from "@/lib/payments/stripe";
 import { recordAudit } from "./audit";
 import { scopedTo } from "./scope";
 
 const REUSE_WITHIN_MS = 20 * 60 * 60 * 1000;
+
+const paymentServiceUnavailable = () =>
+  new HttpError(
+    503,
+    "payment_service_unavailable",
+    "Payment service unavailable",
+    "The card-payment service is not answering, so no payment page was opened and nothing was charged. Try again in a few minutes, or pay by cheque or bank transfer.",
+  );
 
 /** Where the payment page sends the browser back: the invoice, never a page that records anything. */
 export function fleetInvoicePath(invoiceId: string): string {
@@ -69,6 +77,10 @@ export async function startCheckout(user: SessionUser, invoiceId: string): Promi
     successUrl: `${back}?checkout=returned`,
     cancelUrl: `${back}?checkout=cancelled`,
     customerEmail: user.email,
+  }).catch((error: unknown) => {
+    if (!isServiceUnavailable(error)) throw error;
+    console.error(`checkout for ${label}: payment service unavailable`, error);
+    throw paymentServiceUnavailable();
   });
   if (!session.url) throw new Error("the payment service returned a session without a page");
   const url = session.url;

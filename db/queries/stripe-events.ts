@@ -9,7 +9,7 @@ import { applyToInvoice } from "./payments";
 
 export type EventOutcome =
   | { outcome: "duplicate" }
-  | { outcome: "ignored" | "not_paid" | "unknown_invoice" | "session_expired" | "already_recorded" }
+  | { outcome: "ignored" | "not_paid" | "unknown_session" | "unknown_invoice" | "session_expired" | "already_recorded" }
   | { outcome: "payment_recorded"; paymentId: string; invoiceId: string; flagged: boolean };
 
 const SERVICE = { label: "Card payment service" };
@@ -21,9 +21,12 @@ function paymentIntentId(s: Stripe.Checkout.Session): string | null {
 
 async function recordCardPayment(tx: Tx, event: Stripe.Event, s: Stripe.Checkout.Session): Promise<EventOutcome> {
   if (s.payment_status !== "paid") return { outcome: "not_paid" };
+  // Only a payment page this app opened can pay anything: the event's metadata is never enough on its own.
   const [session] = await tx.select().from(checkoutSessions).where(eq(checkoutSessions.id, s.id)).limit(1);
-  const invoiceId = session?.invoiceId ?? s.metadata?.invoiceId ?? null;
-  const [inv] = invoiceId ? await tx.select().from(invoices).where(eq(invoices.id, invoiceId)).limit(1) : [];
+  if (!session) return { outcome: "unknown_session" };
+  // A session pays once, whatever other events arrive for it (with or without a payment intent).
+  if (session.status === "complete") return { outcome: "already_recorded" };
+  const [inv] = await tx.select().from(invoices).where(eq(invoices.id, session.invoiceId)).limit(1);
   if (!inv) return { outcome: "unknown_invoice" };
   const intent = paymentIntentId(s);
   if (intent) {
@@ -44,7 +47,7 @@ async function recordCardPayment(tx: Tx, event: Stripe.Event, s: Stripe.Checkout
       amountCents: amount,
       reference: "Online card payment",
       receivedAt: completedAt,
-      recordedBy: session?.createdBy ?? null,
+      recordedBy: session.createdBy,
       checkoutSessionId: s.id,
       paymentIntentId: intent,
       flagged: !verdict.apply,
@@ -54,7 +57,7 @@ async function recordCardPayment(tx: Tx, event: Stripe.Event, s: Stripe.Checkout
     .returning({ id: payments.id });
   if (!row) throw new Error("payment insert returned nothing");
   if (verdict.apply) await applyToInvoice(tx, inv, amount);
-  if (session) await tx.update(checkoutSessions).set({ status: "complete", completedAt }).where(eq(checkoutSessions.id, s.id));
+  await tx.update(checkoutSessions).set({ status: "complete", completedAt }).where(eq(checkoutSessions.id, s.id));
   await recordAudit(tx, SERVICE, {
     action: verdict.apply ? "payment.card" : "payment.card_flagged",
     entityType: "invoice",

@@ -59,6 +59,16 @@ function view(s: Stripe.Checkout.Session): CheckoutSessionView {
   return { id: s.id, url: s.url, status: s.status, paymentStatus: s.payment_status, amountTotal: s.amount_total, expiresAt: s.expires_at };
 }
 
+/** The service did not answer, or answered that it is failing: worth trying again later, and nothing was done. */
+export function isServiceUnavailable(error: unknown): boolean {
+  return (
+    error instanceof Stripe.errors.StripeConnectionError ||
+    error instanceof Stripe.errors.StripeAPIError ||
+    error instanceof Stripe.errors.StripeRateLimitError ||
+    (error instanceof Stripe.errors.StripeError && (error.statusCode ?? 0) >= 500)
+  );
+}
+
 /** A hosted Checkout page for one amount: the invoice's open balance. */
 export async function createCheckoutSession(req: CheckoutRequest): Promise<CheckoutSessionView> {
   const metadata = { invoiceId: req.invoiceId, accountId: req.accountId, amountCents: String(req.amountCents) };
@@ -98,7 +108,7 @@ export async function expireCheckoutSession(id: string): Promise<void> {
  * Verifies the signature over the exact bytes received and parses the event.
  * Throws on a missing, forged or stale signature.
  */
-export function verifyWebhookEvent(rawBody: string, signatureHeader: string | null): Stripe.Event {
+export function verifyWebhookEvent(rawBody: Buffer | string, signatureHeader: string | null): Stripe.Event {
   if (!signatureHeader) throw new Error("No Stripe-Signature header.");
   return stripeClient().webhooks.constructEvent(rawBody, signatureHeader, env().STRIPE_WEBHOOK_SECRET);
 }

@@ -5,13 +5,14 @@
  * scheme: HMAC-SHA256 over "<t>.<raw body>" as the SDK verifies it (stripe-node
  * esm/Webhooks.js); "delivered at least once" per the service's public docs (from memory).
  */
+import { createServer } from "node:net";
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as checkout } from "@/app/api/v1/invoices/[id]/checkout/route";
 import { POST as webhook } from "@/app/api/webhooks/stripe/route";
 import { getDb } from "@/db/client";
 import { recordManualPayment, resolveFlaggedPayment } from "@/db/queries/payments";
-import { accounts, invoices, payments, webhookEvents, type Invoice } from "@/db/schema";
+import { accounts, auditLog, checkoutSessions, invoices, payments, webhookEvents, type Invoice } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { signatureHeader, startFakeStripe, type FakeStripe } from "@/mocks/stripe/server";
@@ -20,6 +21,16 @@ import { asUser } from "./helpers/billing";
 import { serveFetchHandler } from "./helpers/serve-fetch-handler";
 
 const SECRET = "whsec_integration_test_secret";
+
+function closedPort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const server = createServer();
+    server.listen(0, "127.0.0.1", () => {
+      const address = server.address();
+      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
+    });
+  });
+}
 let fake: FakeStripe;
 let app: { url: string; close(): Promise<void> };
 let smtp: FakeSmtp;
@@ -109,6 +120,78 @@ describe("paying by card through Checkout", () => {
     const a = await call<{ url: string }>(checkout, { path: "/x", method: "POST", params: { id: inv.id }, as: "clerk@brennan-twp.example" });
     const b = await call<{ url: string }>(checkout, { path: "/x", method: "POST", params: { id: inv.id }, as: "supervisor@brennan-twp.example" });
     expect(a.body.url).toBe(b.body.url);
+  });
+});
+
+describe("a session pays once, and only a session the app opened pays at all", () => {
+  async function signed(event: object) {
+    const body = JSON.stringify(event);
+    return call<{ outcome: string }>(webhook, { path: "/api/webhooks/stripe", method: "POST", body, headers: { "content-type": "application/json", "stripe-signature": signatureHeader(body, SECRET) } });
+  }
+  const completed = (id: string, sessionId: string, amount: number, extra: object = {}) => ({
+    id,
+    object: "event",
+    type: "checkout.session.completed",
+    created: Math.floor(Date.now() / 1000),
+    data: { object: { id: sessionId, object: "checkout.session", payment_status: "paid", amount_total: amount, currency: "usd", payment_intent: null, ...extra } },
+  });
+
+  it("a signed event for a session the app never opened records nothing, whatever its metadata says", async () => {
+    const inv = await unpaidInvoiceOf("Alder Falls School District Transportation");
+    const res = await signed(completed("evt_metadata_only", "cs_test_not_ours", inv.totalCents, { metadata: { invoiceId: inv.id } }));
+    expect([res.status, res.body.outcome]).toEqual([200, "unknown_session"]);
+    expect(await paymentsOf(inv.id)).toHaveLength(0);
+    expect(await reload(inv.id)).toMatchObject({ status: "open", paidCents: 0 });
+  });
+
+  it("a second completed event for a session already paid, without a payment intent, records no second payment", async () => {
+    const inv = await unpaidInvoiceOf("Alder Falls School District Transportation");
+    const started = await call<{ url: string }>(checkout, { path: "/x", method: "POST", params: { id: inv.id }, as: "transport@alder-falls-schools.example" });
+    const sessionId = started.body.url.split("/pay/")[1] ?? "";
+    await fetch(`${fake.url}/_fake/checkout/sessions/${sessionId}/complete`, { method: "POST" });
+    await fake.whenDeliveriesSettled();
+    expect(await paymentsOf(inv.id)).toHaveLength(1);
+    const again = await signed(completed("evt_second_completion", sessionId, inv.totalCents));
+    expect([again.status, again.body.outcome]).toEqual([200, "already_recorded"]);
+    expect(await paymentsOf(inv.id)).toHaveLength(1);
+  });
+
+  it("refuses an oversize event while it streams, without waiting for the rest", async () => {
+    let sent = 0;
+    // 600 KB, then the sender never finishes: only a reader that counts as it goes can answer.
+    const body = new ReadableStream<Uint8Array>({
+      pull(controller) {
+        if (sent < 600 * 1024) {
+          controller.enqueue(new Uint8Array(64 * 1024).fill(0x20));
+          sent += 64 * 1024;
+        }
+      },
+    });
+    const request = new Request("http://localhost:3000/api/webhooks/stripe", { method: "POST", body, headers: { "content-type": "application/json", "stripe-signature": "t=1,v1=x" }, duplex: "half" } as RequestInit);
+    const res = await webhook(request);
+    expect(res.status).toBe(413);
+    expect(sent).toBeLessThan(600 * 1024 + 1);
+  });
+});
+
+describe("the payment service not answering", () => {
+  it("answers 503 payment_service_unavailable, in words, and changes nothing", async () => {
+    const inv = await unpaidInvoiceOf("Kettle Ridge Stone Co.", used);
+    const before = { sessions: await getDb().select().from(checkoutSessions), audit: await getDb().select().from(auditLog) };
+    // A port where nothing listens: the SDK's connection is refused, as when the service is down.
+    process.env.FAKE_STRIPE_PORT = String(await closedPort());
+    resetEnvCache();
+    try {
+      const res = await call(checkout, { path: "/x", method: "POST", params: { id: inv.id }, as: "office@kettle-ridge.example" });
+      expect([res.status, res.body.code]).toEqual([503, "payment_service_unavailable"]);
+      expect(res.body.detail).toMatch(/not answering.*nothing was charged/);
+    } finally {
+      process.env.FAKE_STRIPE_PORT = String(fake.port);
+      resetEnvCache();
+    }
+    expect(await getDb().select().from(checkoutSessions)).toHaveLength(before.sessions.length);
+    expect(await getDb().select().from(auditLog)).toHaveLength(before.audit.length);
+    expect(await reload(inv.id)).toMatchObject({ status: inv.status, paidCents: inv.paidCents });
   });
 });
 

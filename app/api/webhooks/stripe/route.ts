@@ -1,6 +1,7 @@
 import { applyStripeEvent } from "@/db/queries/stripe-events";
 import { errorResponse } from "@/lib/http/api-route";
 import { HttpError, problemResponse } from "@/lib/http/problem";
+import { readUpTo } from "@/lib/http/read-body";
 import { notifyPaymentFlagged, notifyPaymentReceived } from "@/lib/mail/invoice-notices";
 import { deliverLater } from "@/lib/mail/deliver";
 import { verifyWebhookEvent, type Stripe } from "@/lib/payments/stripe";
@@ -15,10 +16,11 @@ const MAX_BYTES = 512 * 1024;
  * nothing. Each event takes effect once however often it arrives.
  */
 export async function POST(request: Request): Promise<Response> {
-  const raw = await request.text();
-  if (raw.length > MAX_BYTES) {
-    return problemResponse(new HttpError(413, "payload_too_large", "Payload too large", "The event is too large."));
-  }
+  // Counted while it streams in: an oversize body is refused before it is all read.
+  const tooLarge = () => problemResponse(new HttpError(413, "payload_too_large", "Payload too large", "The event is too large."));
+  if (Number(request.headers.get("content-length") ?? "0") > MAX_BYTES) return tooLarge();
+  const raw = request.body ? await readUpTo(request.body, MAX_BYTES) : Buffer.alloc(0);
+  if (!raw) return tooLarge();
   let event: Stripe.Event;
   try {
     event = verifyWebhookEvent(raw, request.headers.get("stripe-signature"));
