@@ -75,6 +75,10 @@ export function describeDecisions(changes: LineChange[]): string {
 export async function decide(user: SessionUser, workOrderId: string, requests: DecisionRequest[]) {
   return writeTx(async (tx) => {
     const ctx = await loadEstimateContext(tx, user, workOrderId);
+    // A released visit is closed: nothing on it waits for a decision any more, whatever state a line was left in.
+    if (ctx.wo.status === "released") {
+      throw conflict("not_pending", `${workOrderLabel(ctx.wo.number)} was released; its lines are no longer waiting for a decision.`, { lineId: requests[0]?.lineId ?? null });
+    }
     const bounds = currentFiscalYear(ctx.account);
     const result = decideLines({
       workOrderNumber: workOrderLabel(ctx.wo.number),

@@ -176,9 +176,11 @@ export async function deleteLine(user: SessionUser, lineId: string, expectedVers
 export async function moveLine(user: SessionUser, lineId: string, direction: "up" | "down") {
   return writeTx(async (tx) => {
     const { ctx, line } = await loadLineContext(tx, user, lineId);
+    assertOpen(ctx);
     const ordered = ctx.lines;
     const index = ordered.findIndex((l) => l.id === line.id);
-    const other = ordered[direction === "up" ? index - 1 : index + 1];
+    const to = direction === "up" ? index - 1 : index + 1;
+    const other = ordered[to];
     if (!other) return;
     // Renumber everything so equal positions from older rows cannot stick.
     const next = [...ordered];
@@ -187,6 +189,7 @@ export async function moveLine(user: SessionUser, lineId: string, direction: "up
     for (const [i, l] of next.entries()) {
       if (l.position !== i) await tx.update(estimateLines).set({ position: i }).where(eq(estimateLines.id, l.id));
     }
+    await recordAudit(tx, user, { action: "line.moved", entityType: "line", entityId: line.id, accountId: ctx.wo.accountId, detail: { direction, from: index + 1, to: to + 1 } });
   });
 }
 

@@ -1,10 +1,11 @@
 import { and, desc, eq } from "drizzle-orm";
 import { writeTx } from "@/db/client";
 import { meterReadings, units } from "@/db/schema";
+import { isStaff } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { nowIso } from "@/lib/ids";
 import { checkMeterReading } from "@/lib/meters";
-import { invalidInput, notFound } from "@/lib/http/problem";
+import { forbidden, invalidInput, notFound } from "@/lib/http/problem";
 import type { MeterReadingInput } from "@/lib/validation/meter-reading";
 import { recordAudit } from "./audit";
 import { scopedTo } from "./scope";
@@ -18,6 +19,8 @@ export async function addMeterReading(user: SessionUser, unitId: string, input: 
       .where(and(eq(units.id, unitId), scopedTo(units.accountId, user)))
       .limit(1);
     if (!unit) throw notFound("That unit");
+    // A lower reading is accepted only with a replaced meter, so saying so is the shop's call (it is audited).
+    if (input.meterReplaced && !isStaff(user)) throw forbidden("Only the shop records a replaced meter. Tell the shop the meter was changed.");
 
     const [previous] = await tx
       .select({ value: meterReadings.value, readAt: meterReadings.readAt })

@@ -1,11 +1,14 @@
-import { eq } from "drizzle-orm";
-import { writeTx } from "@/db/client";
-import { statusEvents, workOrders } from "@/db/schema";
+import { and, eq } from "drizzle-orm";
+import { writeTx, type Tx } from "@/db/client";
+import { decisions, estimateLines, statusEvents, workOrders } from "@/db/schema";
+import { CAN, hasRole } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { STATUS_LABELS, workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
+import { STATUS_LABELS, workOrderLabel } from "@/lib/domain";
 import { formatDate } from "@/lib/format";
-import { conflict, invalidInput, notFound } from "@/lib/http/problem";
+import { conflict, forbidden, invalidInput, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
+import { formatCents, lineAmountCents } from "@/lib/money";
+import type { StatusMoveInput } from "@/lib/validation/status";
 import { recordAudit } from "./audit";
 import { findWorkOrder } from "./work-order-detail";
 
@@ -15,7 +18,7 @@ import { findWorkOrder } from "./work-order-detail";
  * (work goes back to Repairing after a failed final check); Released is final.
  * The same status again is allowed only with a note: an update for the customer.
  */
-export async function moveStatus(user: SessionUser, workOrderId: string, move: { status: WorkOrderStatus; note: string }) {
+export async function moveStatus(user: SessionUser, workOrderId: string, move: StatusMoveInput) {
   return writeTx(async (tx) => {
     const wo = await findWorkOrder(user, workOrderId, tx);
     if (!wo) throw notFound("That work order");
@@ -34,6 +37,7 @@ export async function moveStatus(user: SessionUser, workOrderId: string, move: {
     }
     const at = nowIso();
     const released = move.status === "released";
+    if (released) await settleWaitingLines(tx, user, wo, move, at);
     await tx
       .update(workOrders)
       .set({ status: move.status, updatedAt: at, ...(released ? { releasedAt: at } : {}) })
@@ -66,5 +70,60 @@ export async function moveStatus(user: SessionUser, workOrderId: string, move: {
       },
       becameReady: move.status === "ready" && wo.status !== "ready",
     };
+  });
+}
+
+type Visit = NonNullable<Awaited<ReturnType<typeof findWorkOrder>>>;
+
+/**
+ * A visit is not released with lines still waiting for the customer: the
+ * writer says what becomes of them (held for the unit's next visit, or
+ * declined with a note), and that is recorded in the release's own
+ * transaction, each line with its decision row, so nothing is left pending on
+ * a closed visit.
+ */
+async function settleWaitingLines(tx: Tx, user: SessionUser, wo: Visit, move: StatusMoveInput, at: string): Promise<void> {
+  const waiting = await tx
+    .select({ id: estimateLines.id, description: estimateLines.description, version: estimateLines.version, quantityMilli: estimateLines.quantityMilli, unitPriceCents: estimateLines.unitPriceCents })
+    .from(estimateLines)
+    .where(and(eq(estimateLines.workOrderId, wo.id), eq(estimateLines.state, "proposed")))
+    .orderBy(estimateLines.position);
+  if (waiting.length === 0) return;
+  const label = workOrderLabel(wo.number);
+  const lines = waiting.map((l) => ({ id: l.id, description: l.description, amountCents: lineAmountCents(l.quantityMilli, l.unitPriceCents) }));
+  if (!move.pendingLines) {
+    const total = lines.reduce((sum, l) => sum + l.amountCents, 0);
+    throw conflict(
+      "lines_pending",
+      `${lines.length} line${lines.length === 1 ? "" : "s"} on ${label} (${formatCents(total)}) still wait for the customer's decision. Hold them for ${wo.unitNumber}'s next visit, or decline them with a note, then release.`,
+      { lines },
+    );
+  }
+  if (!hasRole(user, CAN.writeEstimates)) {
+    throw forbidden("Lines on this visit still wait for the customer. The owner or a service writer decides what becomes of them and releases it.");
+  }
+  const state = move.pendingLines === "hold" ? "held" : "declined";
+  const note = move.pendingLines === "hold" ? move.pendingNote || `Held for the next visit when ${label} was released.` : move.pendingNote;
+  for (const [i, l] of waiting.entries()) {
+    await tx.update(estimateLines).set({ state, version: l.version + 1, reopenReason: null, updatedAt: at }).where(eq(estimateLines.id, l.id));
+    await tx.insert(decisions).values({
+      lineId: l.id,
+      workOrderId: wo.id,
+      accountId: wo.accountId,
+      decision: move.pendingLines,
+      byUserId: user.id,
+      byStanding: false,
+      amountCents: lines[i]!.amountCents,
+      lineVersion: l.version + 1,
+      note,
+      at,
+    });
+  }
+  await recordAudit(tx, user, {
+    action: `work_order.release_${state}`,
+    entityType: "work_order",
+    entityId: wo.id,
+    accountId: wo.accountId,
+    detail: { lineIds: lines.map((l) => l.id), note },
   });
 }

@@ -46,7 +46,13 @@ export default async function ShopWorkOrderPage({ params }: { params: Promise<{ 
             {hasRole(user, CAN.moveStatus) ? (
               <Card>
                 <CardTitle>Move this unit</CardTitle>
-                <StatusMover workOrderId={view.id} status={view.status} unitNumber={view.unitNumber} />
+                <StatusMover
+                  workOrderId={view.id}
+                  status={view.status}
+                  unitNumber={view.unitNumber}
+                  waitingLines={view.lines.filter((l) => l.state === "proposed").length}
+                  canSettle={hasRole(user, CAN.writeEstimates)}
+                />
               </Card>
             ) : null}
             <Card>
