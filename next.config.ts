@@ -13,6 +13,10 @@ const nextConfig: NextConfig = {
   typedRoutes: false,
   // unauthorized() and forbidden() render app/unauthorized.tsx and app/forbidden.tsx with 401/403.
   experimental: { authInterrupts: true },
+  // The owner's mail page moved when it started showing real outgoing mail; old links still land.
+  async redirects() {
+    return [{ source: "/dev/mail", destination: "/settings/mail", permanent: false }];
+  },
 };
 
 export default nextConfig;

@@ -64,6 +64,18 @@ export function writeTx<T>(fn: (tx: Tx) => Promise<T>): Promise<T> {
   return run;
 }
 
+/** More work for a write's own transaction, given its result: callers queue the e-mail about the change here. */
+export type InSameTx<R> = (tx: Tx, result: R) => Promise<void>;
+
+/** writeTx, then `also` inside the same transaction with the result, so both commit or neither does. */
+export function writeTxThen<T>(fn: (tx: Tx) => Promise<T>, also?: InSameTx<T>): Promise<T> {
+  return writeTx(async (tx) => {
+    const result = await fn(tx);
+    if (also) await also(tx, result);
+    return result;
+  });
+}
+
 export function closeDb(): void {
   holder.__cotterDb?.client.close();
   holder.__cotterDb = undefined;

@@ -588,20 +588,49 @@ export const signInFailures = sqliteTable(
   (t) => [index("sign_in_failures_ip_at_idx").on(t.ip, t.at), index("sign_in_failures_email_at_idx").on(t.email, t.at)],
 );
 
-export const mailLog = sqliteTable(
-  "mail_log",
+/** Where a queued e-mail's attachment comes from; built when the message is sent. */
+export type MailAttachmentRef = { kind: "invoice_pdf"; invoiceId: string; filename: string };
+
+export const MAIL_STATUSES = ["queued", "sending", "sent", "failed"] as const;
+
+/**
+ * Every e-mail the app sends, one row per recipient: written in the same
+ * transaction as the change that causes it, then sent by the mail worker with
+ * retries (lib/mail/worker.ts). A row with a group key collects several
+ * events (decisions on one work order for one person) into one message until
+ * its send-after time.
+ */
+export const mailOutbox = sqliteTable(
+  "mail_outbox",
   {
     id: id(),
     to: text("to").notNull(),
     subject: text("subject").notNull(),
+    text: text("text").notNull(),
+    html: text("html").notNull(),
     template: text("template").notNull(),
     link: text("link").notNull().default(""),
-    status: text("status", { enum: ["sent", "failed"] }).notNull(),
-    error: text("error"),
-    at: text("at").notNull(),
+    attachments: text("attachments", { mode: "json" }).$type<MailAttachmentRef[]>().notNull().default(sql`'[]'`),
+    groupKey: text("group_key"),
+    /** A grouped message's events so far, from which its text is rebuilt when another joins. */
+    groupItems: text("group_items", { mode: "json" }).$type<unknown[]>(),
+    status: text("status", { enum: MAIL_STATUSES }).notNull().default("queued"),
+    attempts: integer("attempts").notNull().default(0),
+    /** Not before this time: the end of a group's window, or the next retry. */
+    sendAfter: text("send_after").notNull(),
+    claimedAt: text("claimed_at"),
+    lastError: text("last_error"),
+    sentAt: text("sent_at"),
+    createdAt: createdAt(),
   },
-  (t) => [index("mail_log_at_idx").on(t.at)],
+  (t) => [
+    index("mail_outbox_due_idx").on(t.status, t.sendAfter),
+    index("mail_outbox_group_idx").on(t.groupKey, t.status),
+    index("mail_outbox_created_idx").on(t.createdAt),
+  ],
 );
+
+export type MailOutboxRow = typeof mailOutbox.$inferSelect;
 
 export const accountsRelations = relations(accounts, ({ many }) => ({
   users: many(users),

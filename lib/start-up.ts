@@ -1,5 +1,6 @@
 import { env } from "@/lib/env";
 import { installSocketAddressStamp } from "@/lib/http/client-address";
+import { startMailWorker } from "@/lib/mail/worker";
 
 /**
  * Runs once when the server starts (instrumentation.ts), before it answers
@@ -14,4 +15,6 @@ export async function startUp(): Promise<void> {
     process.exit(1);
   }
   await installSocketAddressStamp();
+  // Mail queued before a restart goes out now, without waiting for new mail to be queued.
+  startMailWorker();
 }

@@ -15,7 +15,7 @@ async function main() {
       smtpPort: Number(process.env.FAKE_SMTP_PORT ?? 2525),
       httpPort: Number(process.env.FAKE_SMTP_HTTP_PORT ?? 2526),
     });
-    started.push(`mail catcher: smtp://127.0.0.1:${smtp.smtpPort} (caught mail at /dev/mail for the owner)`);
+    started.push(`mail catcher: smtp://127.0.0.1:${smtp.smtpPort} (the owner sees outgoing mail at /settings/mail)`);
   }
   if (!process.env.STRIPE_SECRET_KEY) {
     const appUrl = (process.env.NEXTAUTH_URL ?? "http://localhost:3000").replace(/\/$/, "");

@@ -1,5 +1,5 @@
 import { and, eq, gt } from "drizzle-orm";
-import { writeTx } from "@/db/client";
+import { writeTxThen, type InSameTx } from "@/db/client";
 import { estimateLines, invoiceLines, statusEvents } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { invoiceLabel, workOrderLabel } from "@/lib/domain";
@@ -19,8 +19,8 @@ import { loadLineContext } from "./estimate-lines";
  * core, a credit note for the core goes against it (up to what is still owed).
  * The timeline tells the fleet.
  */
-export async function setCoreReturned(user: SessionUser, lineId: string, returned: boolean) {
-  return writeTx(async (tx) => {
+export async function setCoreReturned(user: SessionUser, lineId: string, returned: boolean, notify?: InSameTx<{ creditNote: { id: string } | null }>) {
+  return writeTxThen(async (tx) => {
     const { ctx, line } = await loadLineContext(tx, user, lineId);
     if (line.kind !== "part" || line.coreChargeCents === 0) {
       throw conflict("no_core_charge", `“${line.description}” has no core charge.`);
@@ -79,5 +79,5 @@ export async function setCoreReturned(user: SessionUser, lineId: string, returne
       detail: { lineId: line.id, coreCents },
     });
     return { workOrderId: ctx.wo.id, changed: true, creditNote };
-  });
+  }, notify);
 }

@@ -1,5 +1,5 @@
 import { eq, sql } from "drizzle-orm";
-import { writeTx, type Tx } from "@/db/client";
+import { writeTxThen, type InSameTx, type Tx } from "@/db/client";
 import { counters, creditNotes, invoices, type Invoice } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { creditNoteLabel } from "@/lib/domain";
@@ -62,6 +62,6 @@ export async function creditInvoiceInTx(
 }
 
 /** The shop credits part of an issued invoice (owner, writer); another account's invoice is 404. */
-export async function issueCreditNote(user: SessionUser, invoiceId: string, input: { amountCents: number; reason: string }) {
-  return writeTx(async (tx) => creditInvoiceInTx(tx, user, await invoiceFor(tx, user, invoiceId), input));
+export async function issueCreditNote(user: SessionUser, invoiceId: string, input: { amountCents: number; reason: string }, notify?: InSameTx<{ id: string }>) {
+  return writeTxThen(async (tx) => creditInvoiceInTx(tx, user, await invoiceFor(tx, user, invoiceId), input), notify);
 }

@@ -1,5 +1,5 @@
 import { and, eq } from "drizzle-orm";
-import { getDb, writeTx, type Tx } from "@/db/client";
+import { getDb, writeTxThen, type InSameTx, type Tx } from "@/db/client";
 import { decisions, estimateLines, statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { DECISION_LABELS, workOrderLabel } from "@/lib/domain";
@@ -72,8 +72,8 @@ export function describeDecisions(changes: LineChange[]): string {
  * transaction: every line or none. Refusals are 409 problems naming the
  * amounts; a line of another account is 404.
  */
-export async function decide(user: SessionUser, workOrderId: string, requests: DecisionRequest[]) {
-  return writeTx(async (tx) => {
+export async function decide(user: SessionUser, workOrderId: string, requests: DecisionRequest[], notify?: InSameTx<{ result: BatchOk; wo: { id: string } }>) {
+  return writeTxThen(async (tx) => {
     const ctx = await loadEstimateContext(tx, user, workOrderId);
     // A released visit is closed: nothing on it waits for a decision any more, whatever state a line was left in.
     if (ctx.wo.status === "released") {
@@ -112,7 +112,7 @@ export async function decide(user: SessionUser, workOrderId: string, requests: D
       detail: result.changes.map((c) => ({ lineId: c.lineId, decision: c.record.decision, amountCents: c.record.amountCents, version: c.record.lineVersion })),
     });
     return { result: result as BatchOk, wo: ctx.wo, at };
-  });
+  }, notify);
 }
 
 function capitalise(text: string): string {

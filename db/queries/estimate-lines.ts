@@ -1,5 +1,5 @@
 import { and, eq, inArray, isNull, ne, sql } from "drizzle-orm";
-import { writeTx, type Reader, type Tx } from "@/db/client";
+import { writeTx, writeTxThen, type InSameTx, type Reader, type Tx } from "@/db/client";
 import { concerns, estimateLines, statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { isApprovedState, reviseLine } from "@/lib/estimate";
@@ -87,8 +87,8 @@ export type EditOutcome = {
  * approved line revised upward keeps its approval only inside the account's
  * overrun allowance; past it, the line goes back for a decision.
  */
-export async function editLine(user: SessionUser, input: EditLineInput): Promise<EditOutcome> {
-  return writeTx(async (tx) => {
+export async function editLine(user: SessionUser, input: EditLineInput, notify?: InSameTx<EditOutcome>): Promise<EditOutcome> {
+  return writeTxThen(async (tx) => {
     const { ctx, line } = await loadLineContext(tx, user, input.lineId);
     assertOpen(ctx);
     if (line.version !== input.expectedVersion) {
@@ -152,7 +152,7 @@ export async function editLine(user: SessionUser, input: EditLineInput): Promise
       accountId: ctx.wo.accountId,
       woNumber: ctx.wo.number,
     };
-  });
+  }, notify);
 }
 
 export async function deleteLine(user: SessionUser, lineId: string, expectedVersion: number) {

@@ -1,5 +1,5 @@
 import { eq } from "drizzle-orm";
-import { writeTx } from "@/db/client";
+import { writeTx, writeTxThen, type InSameTx } from "@/db/client";
 import { estimateLines, statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { workOrderLabel } from "@/lib/domain";
@@ -16,8 +16,8 @@ import { assertOpen } from "./estimate-lines";
  * Sends the draft lines to the fleet: they become "waiting on decision", the
  * work order moves to Waiting on approval, and the timeline says so.
  */
-export async function sendEstimate(user: SessionUser, workOrderId: string) {
-  return writeTx(async (tx) => {
+export async function sendEstimate(user: SessionUser, workOrderId: string, notify?: InSameTx<{ sentCount: number }>) {
+  return writeTxThen(async (tx) => {
     const ctx = await loadEstimateContext(tx, user, workOrderId);
     assertOpen(ctx);
     const drafts = ctx.lines.filter((l) => l.state === "draft");
@@ -39,7 +39,7 @@ export async function sendEstimate(user: SessionUser, workOrderId: string) {
     });
     await recordAudit(tx, user, { action: "estimate.sent", entityType: "work_order", entityId: ctx.wo.id, accountId: ctx.wo.accountId, detail: { lineIds: drafts.map((l) => l.id) } });
     return { wo: ctx.wo, sentCount: drafts.length };
-  });
+  }, notify);
 }
 
 /**

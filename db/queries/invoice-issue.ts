@@ -1,5 +1,5 @@
 import { and, desc, eq, inArray, ne, sql } from "drizzle-orm";
-import { writeTx, type Reader, type Tx } from "@/db/client";
+import { writeTx, writeTxThen, type InSameTx, type Reader, type Tx } from "@/db/client";
 import {
   accountContacts,
   accounts,
@@ -179,8 +179,8 @@ export async function createInvoiceInTx(
 }
 
 /** Issues the invoice for a work order (owner, writer). A PO number typed here is kept on the work order too. */
-export async function issueInvoice(user: SessionUser, workOrderId: string, input: { poNumber?: string }, now = new Date()) {
-  return writeTx(async (tx) => {
+export async function issueInvoice(user: SessionUser, workOrderId: string, input: { poNumber?: string }, now = new Date(), notify?: InSameTx<{ id: string }>) {
+  return writeTxThen(async (tx) => {
     const src = await loadInvoiceSources(tx, user, workOrderId);
     const typed = input.poNumber?.trim() || null;
     const poNumber = typed ?? src.wo.poNumber;
@@ -196,7 +196,7 @@ export async function issueInvoice(user: SessionUser, workOrderId: string, input
       detail: { number: created.number, workOrderId, totalCents: created.totalCents, poNumber },
     });
     return created;
-  });
+  }, notify);
 }
 
 /** Marks approved work finished (owner, writer, from the issue screen). */

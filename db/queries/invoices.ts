@@ -1,5 +1,5 @@
 import { and, asc, desc, eq, gt, lt, or, sql, type SQL } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getDb, type Reader } from "@/db/client";
 import { accounts, creditNotes, invoiceLines, invoices, payments, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { creditNoteLabel, invoiceLabel, workOrderLabel, type InvoiceStatus } from "@/lib/domain";
@@ -108,8 +108,7 @@ export async function openInvoices(accountId: string | null) {
 }
 
 /** One invoice with lines and payments, scoped: null for another account's or a missing id. */
-export async function getInvoiceDetail(user: Pick<SessionUser, "role" | "accountId">, id: string) {
-  const db = getDb();
+export async function getInvoiceDetail(user: Pick<SessionUser, "role" | "accountId">, id: string, db: Reader = getDb()) {
   const [inv] = await db
     .select({ invoice: invoices, accountName: accounts.name, workOrderNumber: workOrders.number, unitId: workOrders.unitId })
     .from(invoices)

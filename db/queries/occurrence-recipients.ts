@@ -1,5 +1,5 @@
 import { and, count, eq, inArray, isNull, ne } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getDb, type Reader } from "@/db/client";
 import { accounts, concerns, occurrences, units, users, workOrders } from "@/db/schema";
 import { shopRecipients } from "./recipients";
 
@@ -8,8 +8,7 @@ import { shopRecipients } from "./recipients";
  * the visit the concern was raised on and of the unit's visit in the shop now.
  * With no writer among them, every active writer.
  */
-export async function occurrenceRecipients(unitId: string, concernId: string | null): Promise<string[]> {
-  const db = getDb();
+export async function occurrenceRecipients(unitId: string, concernId: string | null, db: Reader = getDb()): Promise<string[]> {
   const ids = new Set<string>();
   if (concernId) {
     const [c] = await db
@@ -33,13 +32,12 @@ export async function occurrenceRecipients(unitId: string, concernId: string | n
         .where(and(inArray(users.id, [...ids]), isNull(users.accountId), eq(users.active, true)))
     : [];
   const emails = staff.map((s) => s.email);
-  if (!staff.some((s) => s.role === "writer" || s.role === "owner")) emails.push(...(await shopRecipients(["writer"])));
+  if (!staff.some((s) => s.role === "writer" || s.role === "owner")) emails.push(...(await shopRecipients(["writer"], db)));
   return [...new Set(emails)];
 }
 
 /** What the e-mail needs: unit, account, concern, and how many entries there are now. */
-export async function occurrenceMailFacts(occurrenceId: string) {
-  const db = getDb();
+export async function occurrenceMailFacts(occurrenceId: string, db: Reader = getDb()) {
   const [row] = await db
     .select({
       occurrence: occurrences,

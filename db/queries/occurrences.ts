@@ -1,5 +1,5 @@
 import { and, desc, eq, isNull, lt, or, type SQL } from "drizzle-orm";
-import { getDb, writeTx, type Tx } from "@/db/client";
+import { getDb, writeTx, writeTxThen, type InSameTx, type Tx } from "@/db/client";
 import { concerns, occurrences, units, users, workOrders } from "@/db/schema";
 import { isStaff } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -138,8 +138,8 @@ async function resolveConcern(tx: Tx, unitId: string, concernId: string | null) 
   return open[0] ?? null;
 }
 
-export async function addOccurrence(user: SessionUser, unitId: string, input: OccurrenceInput) {
-  return writeTx(async (tx) => {
+export async function addOccurrence(user: SessionUser, unitId: string, input: OccurrenceInput, notify?: InSameTx<{ id: string }>) {
+  return writeTxThen(async (tx) => {
     const unit = await findScopedUnit(user, unitId, tx);
     if (!unit) throw notFound("That unit");
     const concern = await resolveConcern(tx, unit.id, input.concernId);
@@ -151,7 +151,7 @@ export async function addOccurrence(user: SessionUser, unitId: string, input: Oc
     if (photoId) await attachOccurrencePhoto(tx, user, { id: row!.id, unitId: unit.id, accountId: unit.accountId }, photoId);
     await recordAudit(tx, user, { action: "occurrence.logged", entityType: "occurrence", entityId: row!.id, accountId: unit.accountId, detail: { unitId: unit.id, concernId: concern?.id ?? null, photoId } });
     return { id: row!.id, unit, concern };
-  });
+  }, notify);
 }
 
 export async function getOccurrence(user: SessionUser, unitId: string, occurrenceId: string) {

@@ -1,5 +1,5 @@
 import { and, eq } from "drizzle-orm";
-import { writeTx, type Tx } from "@/db/client";
+import { writeTx, writeTxThen, type InSameTx, type Tx } from "@/db/client";
 import { checkoutSessions, invoices, payments, type Invoice } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { invoiceLabel, type PaymentMethod } from "@/lib/domain";
@@ -40,8 +40,8 @@ export interface ManualPayment {
 }
 
 /** A cheque, transfer or cash payment the shop records by hand, whole or in part. */
-export async function recordManualPayment(user: SessionUser, invoiceId: string, input: ManualPayment) {
-  return writeTx(async (tx) => {
+export async function recordManualPayment(user: SessionUser, invoiceId: string, input: ManualPayment, notify?: InSameTx<{ paymentId: string }>) {
+  return writeTxThen(async (tx) => {
     const inv = await invoiceFor(tx, user, invoiceId);
     const problem = manualPaymentProblem(inv, input.amountCents);
     if (problem) throw conflict("payment_refused", problem);
@@ -68,7 +68,7 @@ export async function recordManualPayment(user: SessionUser, invoiceId: string, 
       detail: { paymentId: row.id, method: input.method, amountCents: input.amountCents, reference: input.reference },
     });
     return { paymentId: row.id, invoiceId: inv.id, status: after.status, balanceCents: balanceOf(after) };
-  });
+  }, notify);
 }
 
 /**

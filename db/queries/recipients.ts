@@ -1,11 +1,11 @@
 import { and, eq, inArray, isNull } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import { getDb, type Reader } from "@/db/client";
 import { users } from "@/db/schema";
 import type { FleetRole, ShopRole } from "@/lib/domain";
 
 /** E-mail addresses of an account's active people in the given roles. */
-export async function accountRecipients(accountId: string, roles: readonly FleetRole[]): Promise<string[]> {
-  const rows = await getDb()
+export async function accountRecipients(accountId: string, roles: readonly FleetRole[], db: Reader = getDb()): Promise<string[]> {
+  const rows = await db
     .select({ email: users.email })
     .from(users)
     .where(and(eq(users.accountId, accountId), inArray(users.role, [...roles]), eq(users.active, true)));
@@ -13,16 +13,16 @@ export async function accountRecipients(accountId: string, roles: readonly Fleet
 }
 
 /** E-mail addresses of the shop's active staff in the given roles. */
-export async function shopRecipients(roles: readonly ShopRole[]): Promise<string[]> {
-  const rows = await getDb()
+export async function shopRecipients(roles: readonly ShopRole[], db: Reader = getDb()): Promise<string[]> {
+  const rows = await db
     .select({ email: users.email })
     .from(users)
     .where(and(isNull(users.accountId), inArray(users.role, [...roles]), eq(users.active, true)));
   return rows.map((r) => r.email);
 }
 
-export async function userEmail(userId: string | null): Promise<string[]> {
+export async function userEmail(userId: string | null, db: Reader = getDb()): Promise<string[]> {
   if (!userId) return [];
-  const [row] = await getDb().select({ email: users.email, active: users.active }).from(users).where(eq(users.id, userId)).limit(1);
+  const [row] = await db.select({ email: users.email, active: users.active }).from(users).where(eq(users.id, userId)).limit(1);
   return row?.active ? [row.email] : [];
 }

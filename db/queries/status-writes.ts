@@ -1,5 +1,5 @@
 import { and, eq } from "drizzle-orm";
-import { writeTx, type Tx } from "@/db/client";
+import { writeTxThen, type InSameTx, type Tx } from "@/db/client";
 import { decisions, estimateLines, statusEvents, workOrders } from "@/db/schema";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -18,8 +18,8 @@ import { findWorkOrder } from "./work-order-detail";
  * (work goes back to Repairing after a failed final check); Released is final.
  * The same status again is allowed only with a note: an update for the customer.
  */
-export async function moveStatus(user: SessionUser, workOrderId: string, move: StatusMoveInput) {
-  return writeTx(async (tx) => {
+export async function moveStatus(user: SessionUser, workOrderId: string, move: StatusMoveInput, notify?: InSameTx<{ workOrder: { id: string }; becameReady: boolean }>) {
+  return writeTxThen(async (tx) => {
     const wo = await findWorkOrder(user, workOrderId, tx);
     if (!wo) throw notFound("That work order");
     const label = workOrderLabel(wo.number);
@@ -70,7 +70,7 @@ export async function moveStatus(user: SessionUser, workOrderId: string, move: S
       },
       becameReady: move.status === "ready" && wo.status !== "ready",
     };
-  });
+  }, notify);
 }
 
 type Visit = NonNullable<Awaited<ReturnType<typeof findWorkOrder>>>;

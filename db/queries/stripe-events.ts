@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import type Stripe from "stripe";
-import { writeTx, type Tx } from "@/db/client";
+import { writeTxThen, type InSameTx, type Tx } from "@/db/client";
 import { checkoutSessions, invoices, payments, webhookEvents } from "@/db/schema";
 import { nowIso } from "@/lib/ids";
 import { judgeOnlinePayment } from "@/lib/invoices/balance";
@@ -73,8 +73,8 @@ async function recordCardPayment(tx: Tx, event: Stripe.Event, s: Stripe.Checkout
  * transaction as its effect, so a repeat delivery finds it and does nothing,
  * and a failure rolls both back for the service to retry.
  */
-export async function applyStripeEvent(event: Stripe.Event): Promise<EventOutcome> {
-  return writeTx(async (tx) => {
+export async function applyStripeEvent(event: Stripe.Event, notify?: InSameTx<EventOutcome>): Promise<EventOutcome> {
+  return writeTxThen(async (tx) => {
     const fresh = await tx
       .insert(webhookEvents)
       .values({ id: event.id, type: event.type, receivedAt: nowIso() })
@@ -97,5 +97,5 @@ export async function applyStripeEvent(event: Stripe.Event): Promise<EventOutcom
     }
     await tx.update(webhookEvents).set({ result: result.outcome }).where(eq(webhookEvents.id, event.id));
     return result;
-  });
+  }, notify);
 }

@@ -1,5 +1,5 @@
 import { and, eq, isNull } from "drizzle-orm";
-import { getDb, writeTx, type Reader } from "@/db/client";
+import { getDb, writeTx, writeTxThen, type InSameTx, type Reader } from "@/db/client";
 import { estimateLines, timeEntries } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { checkClockIn, isApprovedState, milliHoursFromSeconds, timeBoxOf, type TimeBox } from "@/lib/estimate";
@@ -63,8 +63,8 @@ export interface ClockOutResult {
  * Stops the technician's running entry on a line. A diagnosis entry never
  * runs past the approved hours: it is cut off where the box filled.
  */
-export async function clockOut(user: SessionUser, lineId: string): Promise<ClockOutResult> {
-  return writeTx(async (tx) => {
+export async function clockOut(user: SessionUser, lineId: string, notify?: InSameTx<ClockOutResult>): Promise<ClockOutResult> {
+  return writeTxThen(async (tx) => {
     const { ctx, line } = await loadLineContext(tx, user, lineId);
     const [entry] = await tx
       .select()
@@ -103,7 +103,7 @@ export async function clockOut(user: SessionUser, lineId: string): Promise<Clock
       woNumber: ctx.wo.number,
       lineDescription: line.description,
     };
-  });
+  }, notify);
 }
 
 /** Per line: clocked hours, time box, and who is clocked in now. */

@@ -151,8 +151,8 @@ export async function loadLatestDecisions(workOrderId: string) {
 }
 
 /** Internal, unscoped: the facts an e-mail about a work order needs (never returned to a browser). */
-export async function workOrderForMail(id: string) {
-  const [row] = await getDb()
+export async function workOrderForMail(id: string, db: Reader = getDb()) {
+  const [row] = await db
     .select({
       id: workOrders.id,
       number: workOrders.number,

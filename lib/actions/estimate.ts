@@ -5,12 +5,10 @@ import { z } from "zod";
 import { addLine, bringBackDeferred, deleteLine, editLine, moveLine, setLineProgress } from "@/db/queries/estimate-lines";
 import { setCoreReturned } from "@/db/queries/core-returns";
 import { sendEstimate, startUnderStanding } from "@/db/queries/estimate-send";
-import { workOrderView } from "@/db/queries/work-order-view";
 import { guardedAction } from "@/lib/auth/guarded-action";
 import { CAN } from "@/lib/auth/policy";
-import { deliverLater } from "@/lib/mail/deliver";
-import { notifyCreditNote } from "@/lib/mail/invoice-notices";
-import { notifyEstimateReady, notifyLineReopened } from "@/lib/notifications/estimate";
+import { queueCreditNote } from "@/lib/mail/invoice-notices";
+import { queueEstimateReady, queueLineReopened } from "@/lib/notifications/estimate";
 import { editLineInput, lineRefInput, newLineInput } from "@/lib/validation/estimate-line";
 import { lineAmountCents } from "@/lib/money";
 
@@ -28,18 +26,16 @@ export const addLineAction = guardedAction({ roles: CAN.writeEstimates, input: n
 });
 
 export const editLineAction = guardedAction({ roles: CAN.writeEstimates, input: editLineInput }, async ({ user, input }) => {
-  const result = await editLine(user, input);
+  const result = await editLine(user, input, async (tx, r) => {
+    if (r.outcome !== "back_to_proposed") return;
+    await queueLineReopened(tx, r.workOrderId, {
+      description: r.line.description,
+      approvedCents: r.previousApprovedCents ?? 0,
+      revisedCents: lineAmountCents(r.line.quantityMilli, r.line.unitPriceCents),
+      reason: r.reason ?? "",
+    });
+  });
   refresh(result.workOrderId);
-  if (result.outcome === "back_to_proposed") {
-    await deliverLater(() =>
-      notifyLineReopened(result.workOrderId, {
-        description: result.line.description,
-        approvedCents: result.previousApprovedCents ?? 0,
-        revisedCents: lineAmountCents(result.line.quantityMilli, result.line.unitPriceCents),
-        reason: result.reason ?? "",
-      }),
-    );
-  }
   return { outcome: result.outcome, reason: result.reason };
 });
 
@@ -59,12 +55,8 @@ export const moveLineAction = guardedAction(
 );
 
 export const sendEstimateAction = guardedAction({ roles: CAN.writeEstimates, input: z.object({ workOrderId: id }) }, async ({ user, input }) => {
-  const { sentCount } = await sendEstimate(user, input.workOrderId);
+  const { sentCount } = await sendEstimate(user, input.workOrderId, (tx, sent) => queueEstimateReady(tx, input.workOrderId, sent.sentCount));
   refresh(input.workOrderId);
-  const view = await workOrderView(user, input.workOrderId);
-  await deliverLater(() =>
-    notifyEstimateReady(input.workOrderId, sentCount, view?.totals.pendingCents ?? 0, view?.findings.some((f) => f.severity === "out_of_service") ?? false),
-  );
   return { sentCount };
 });
 
@@ -98,8 +90,9 @@ export const lineProgressAction = guardedAction(
 export const coreReturnedAction = guardedAction(
   { roles: CAN.writeEstimates, input: z.object({ lineId: id, workOrderId: id, returned: z.boolean() }) },
   async ({ user, input }) => {
-    const result = await setCoreReturned(user, input.lineId, input.returned);
-    if (result.creditNote) void deliverLater(() => notifyCreditNote(result.creditNote!.id));
+    const result = await setCoreReturned(user, input.lineId, input.returned, async (tx, r) => {
+      if (r.creditNote) await queueCreditNote(tx, r.creditNote.id);
+    });
     refresh(result.workOrderId);
     return { changed: result.changed, creditNote: result.creditNote?.label ?? null };
   },

@@ -10,8 +10,8 @@ import { CAN } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
 import { localMiddayIso } from "@/lib/dates";
-import { deliverLater } from "@/lib/mail/deliver";
-import { notifyCreditNote, notifyInvoiceIssued, notifyPaymentReceived } from "@/lib/mail/invoice-notices";
+import { afterResponse } from "@/lib/http/after-response";
+import { queueCreditNote, queueInvoiceIssued, queuePaymentReceived } from "@/lib/mail/invoice-notices";
 import { expireCheckoutSession } from "@/lib/payments/stripe";
 import {
   creditNoteInput,
@@ -32,8 +32,7 @@ function refreshInvoice(invoiceId: string, workOrderId?: string) {
 }
 
 export const issueInvoiceAction = guardedAction({ roles: CAN.issueInvoices, input: issueInvoiceInput }, async ({ user, input }) => {
-  const created = await issueInvoice(user, input.workOrderId, { poNumber: input.poNumber });
-  void deliverLater(() => notifyInvoiceIssued(created.id));
+  const created = await issueInvoice(user, input.workOrderId, { poNumber: input.poNumber }, undefined, (tx, inv) => queueInvoiceIssued(tx, inv.id));
   refreshInvoice(created.id, input.workOrderId);
   // The issue form disappears once the invoice exists, so go to the invoice from here.
   redirect(`/invoices/${created.id}`);
@@ -57,21 +56,18 @@ export const recordPaymentAction = guardedAction({ roles: CAN.issueInvoices, inp
   const now = new Date();
   // A payment dated today keeps its real time; an earlier date is placed at midday so it stays on that day.
   const receivedAt = input.receivedOn === calendarDate(now, timeZone) ? now.toISOString() : localMiddayIso(input.receivedOn, timeZone);
-  const result = await recordManualPayment(user, input.invoiceId, {
-    method: input.method,
-    amountCents: input.amount,
-    reference: input.reference,
-    receivedAt,
-    note: input.note,
-  });
-  void deliverLater(() => notifyPaymentReceived(result.paymentId));
+  const result = await recordManualPayment(
+    user,
+    input.invoiceId,
+    { method: input.method, amountCents: input.amount, reference: input.reference, receivedAt, note: input.note },
+    (tx, r) => queuePaymentReceived(tx, r.paymentId),
+  );
   refreshInvoice(input.invoiceId);
   return result;
 });
 
 export const creditNoteAction = guardedAction({ roles: CAN.issueInvoices, input: creditNoteInput }, async ({ user, input }) => {
-  const result = await issueCreditNote(user, input.invoiceId, { amountCents: input.amount, reason: input.reason });
-  void deliverLater(() => notifyCreditNote(result.id));
+  const result = await issueCreditNote(user, input.invoiceId, { amountCents: input.amount, reason: input.reason }, (tx, c) => queueCreditNote(tx, c.id));
   refreshInvoice(input.invoiceId);
   return result;
 });
@@ -79,7 +75,7 @@ export const creditNoteAction = guardedAction({ roles: CAN.issueInvoices, input:
 export const voidInvoiceAction = guardedAction({ roles: CAN.issueInvoices, input: voidInvoiceInput }, async ({ user, input }) => {
   const result = await voidInvoice(user, input.invoiceId, input.reason);
   // Close any payment page still open for it; a payment that slips through is held for review anyway.
-  void deliverLater(() => Promise.allSettled(result.openCheckoutSessionIds.map(expireCheckoutSession)));
+  void afterResponse(() => Promise.allSettled(result.openCheckoutSessionIds.map(expireCheckoutSession)));
   refreshInvoice(input.invoiceId, result.workOrderId);
   // Next step is the corrected invoice, issued from the work order.
   redirect(`/work-orders/${result.workOrderId}#invoice`);

@@ -6,8 +6,7 @@ import { clockIn, clockOut } from "@/db/queries/time-clock";
 import { guardedAction } from "@/lib/auth/guarded-action";
 import { CAN } from "@/lib/auth/policy";
 import { formatHours } from "@/lib/estimate";
-import { deliverLater } from "@/lib/mail/deliver";
-import { notifyTimeBoxReached } from "@/lib/notifications/estimate";
+import { queueTimeBoxReached } from "@/lib/notifications/estimate";
 
 const input = z.object({ lineId: z.string().min(1).max(64), workOrderId: z.string().min(1).max(64) });
 
@@ -18,11 +17,9 @@ export const clockInAction = guardedAction({ roles: CAN.clockTime, input }, asyn
 });
 
 export const clockOutAction = guardedAction({ roles: CAN.clockTime, input }, async ({ user, input }) => {
-  const result = await clockOut(user, input.lineId);
+  const result = await clockOut(user, input.lineId, async (tx, r) => {
+    if (r.reachedNow && r.box) await queueTimeBoxReached(tx, r.workOrderId, r.lineDescription, formatHours(r.box.approvedMilli));
+  });
   revalidatePath(`/work-orders/${input.workOrderId}`);
-  if (result.reachedNow && result.box) {
-    const approved = formatHours(result.box.approvedMilli);
-    await deliverLater(() => notifyTimeBoxReached(result.workOrderId, result.lineDescription, approved));
-  }
   return { box: result.box, capped: result.capped };
 });

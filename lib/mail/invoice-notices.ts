@@ -1,34 +1,33 @@
 import { eq } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import type { Tx } from "@/db/client";
 import { getInvoiceDetail } from "@/db/queries/invoices";
 import { accountRecipients, shopRecipients, userEmail } from "@/db/queries/recipients";
 import { accounts, creditNotes, payments } from "@/db/schema";
 import { creditNoteLabel } from "@/lib/domain";
 import { env } from "@/lib/env";
-import { renderInvoicePdf } from "@/lib/pdf/invoice-pdf";
+import { queueMail } from "./queue";
+import { appUrl } from "./send";
 import { creditNoteMail } from "./templates/credit-note";
 import { invoiceIssuedMail } from "./templates/invoice-issued";
 import { paymentFlaggedMail } from "./templates/payment-flagged";
 import { paymentReceiptMail } from "./templates/payment-receipt";
-import { appUrl, sendMail } from "./send";
 
 // Notices are sent by the system, which reads across accounts like the shop.
 const SYSTEM = { role: "owner", accountId: null } as const;
 
 /** The account's clerks, plus its billing address (accounts without a clerk get it there). */
-async function billingRecipients(accountId: string): Promise<string[]> {
+async function billingRecipients(tx: Tx, accountId: string): Promise<string[]> {
   const [clerks, [account]] = await Promise.all([
-    accountRecipients(accountId, ["clerk"]),
-    getDb().select({ email: accounts.billingEmail }).from(accounts).where(eq(accounts.id, accountId)).limit(1),
+    accountRecipients(accountId, ["clerk"], tx),
+    tx.select({ email: accounts.billingEmail }).from(accounts).where(eq(accounts.id, accountId)).limit(1),
   ]);
   return [...clerks, ...(account?.email ? [account.email] : [])];
 }
 
-export async function notifyInvoiceIssued(invoiceId: string): Promise<void> {
-  const inv = await getInvoiceDetail(SYSTEM, invoiceId);
+/** Queued in the invoice's own transaction; the PDF is drawn when the message is sent. */
+export async function queueInvoiceIssued(tx: Tx, invoiceId: string): Promise<void> {
+  const inv = await getInvoiceDetail(SYSTEM, invoiceId, tx);
   if (!inv) return;
-  const timeZone = env().APP_TIME_ZONE;
-  const pdf = await renderInvoicePdf(inv, timeZone);
   const mail = invoiceIssuedMail({
     label: inv.label,
     shopName: inv.shop?.name ?? "The shop",
@@ -41,15 +40,18 @@ export async function notifyInvoiceIssued(invoiceId: string): Promise<void> {
     taxExemptCertificate: inv.taxExemptCertificate,
     url: appUrl(`/fleet/invoices/${inv.id}`),
   });
-  await sendMail(await billingRecipients(inv.accountId), mail, "invoice-issued", [
-    { filename: `${inv.label}.pdf`, content: pdf, contentType: "application/pdf" },
-  ]);
+  await queueMail(tx, {
+    to: await billingRecipients(tx, inv.accountId),
+    template: "invoice-issued",
+    mail,
+    attachments: [{ kind: "invoice_pdf", invoiceId: inv.id, filename: `${inv.label}.pdf` }],
+  });
 }
 
-export async function notifyPaymentReceived(paymentId: string): Promise<void> {
-  const [p] = await getDb().select().from(payments).where(eq(payments.id, paymentId)).limit(1);
+export async function queuePaymentReceived(tx: Tx, paymentId: string): Promise<void> {
+  const [p] = await tx.select().from(payments).where(eq(payments.id, paymentId)).limit(1);
   if (!p) return;
-  const inv = await getInvoiceDetail(SYSTEM, p.invoiceId);
+  const inv = await getInvoiceDetail(SYSTEM, p.invoiceId, tx);
   if (!inv) return;
   const mail = paymentReceiptMail({
     label: inv.label,
@@ -63,14 +65,14 @@ export async function notifyPaymentReceived(paymentId: string): Promise<void> {
     held: !p.applied,
     url: appUrl(`/fleet/invoices/${inv.id}`),
   });
-  const payer = p.method === "card" ? await userEmail(p.recordedBy) : [];
-  await sendMail([...(await billingRecipients(inv.accountId)), ...payer], mail, "payment-receipt");
+  const payer = p.method === "card" ? await userEmail(p.recordedBy, tx) : [];
+  await queueMail(tx, { to: [...(await billingRecipients(tx, inv.accountId)), ...payer], template: "payment-receipt", mail });
 }
 
-export async function notifyCreditNote(creditNoteId: string): Promise<void> {
-  const [c] = await getDb().select().from(creditNotes).where(eq(creditNotes.id, creditNoteId)).limit(1);
+export async function queueCreditNote(tx: Tx, creditNoteId: string): Promise<void> {
+  const [c] = await tx.select().from(creditNotes).where(eq(creditNotes.id, creditNoteId)).limit(1);
   if (!c) return;
-  const inv = await getInvoiceDetail(SYSTEM, c.invoiceId);
+  const inv = await getInvoiceDetail(SYSTEM, c.invoiceId, tx);
   if (!inv) return;
   const mail = creditNoteMail({
     creditNote: creditNoteLabel(c.number),
@@ -81,13 +83,13 @@ export async function notifyCreditNote(creditNoteId: string): Promise<void> {
     balanceCents: inv.balanceCents,
     url: appUrl(`/fleet/invoices/${inv.id}`),
   });
-  await sendMail(await billingRecipients(inv.accountId), mail, "credit-note");
+  await queueMail(tx, { to: await billingRecipients(tx, inv.accountId), template: "credit-note", mail });
 }
 
-export async function notifyPaymentFlagged(paymentId: string): Promise<void> {
-  const [p] = await getDb().select().from(payments).where(eq(payments.id, paymentId)).limit(1);
+export async function queuePaymentFlagged(tx: Tx, paymentId: string): Promise<void> {
+  const [p] = await tx.select().from(payments).where(eq(payments.id, paymentId)).limit(1);
   if (!p?.flagged) return;
-  const inv = await getInvoiceDetail(SYSTEM, p.invoiceId);
+  const inv = await getInvoiceDetail(SYSTEM, p.invoiceId, tx);
   if (!inv) return;
   const mail = paymentFlaggedMail({
     label: inv.label,
@@ -96,5 +98,5 @@ export async function notifyPaymentFlagged(paymentId: string): Promise<void> {
     reason: p.flagReason ?? "",
     url: appUrl(`/invoices/${inv.id}`),
   });
-  await sendMail(await shopRecipients(["owner", "writer"]), mail, "payment-flagged");
+  await queueMail(tx, { to: await shopRecipients(["owner", "writer"], tx), template: "payment-flagged", mail });
 }

@@ -1,15 +1,17 @@
+import type { Tx } from "@/db/client";
 import { photosOfOccurrences } from "@/db/queries/occurrence-photos";
 import { occurrenceMailFacts, occurrenceRecipients } from "@/db/queries/occurrence-recipients";
 import { env } from "@/lib/env";
-import { appUrl, sendMail } from "./send";
+import { queueMail } from "./queue";
+import { appUrl } from "./send";
 import { occurrenceLoggedMail } from "./templates/occurrence-logged";
 
-/** E-mails the writer and the technician about a new occurrence; never throws (sendMail logs failures). */
-export async function notifyOccurrence(occurrenceId: string): Promise<{ sent: number; failed: number }> {
-  const facts = await occurrenceMailFacts(occurrenceId);
-  if (!facts) return { sent: 0, failed: 0 };
+/** Queues, in the occurrence's own transaction, the e-mail to the writer and the technician about it. */
+export async function queueOccurrenceNotice(tx: Tx, occurrenceId: string): Promise<void> {
+  const facts = await occurrenceMailFacts(occurrenceId, tx);
+  if (!facts) return;
   const o = facts.occurrence;
-  const [to, photos] = await Promise.all([occurrenceRecipients(o.unitId, o.concernId), photosOfOccurrences([o.id])]);
+  const [to, photos] = await Promise.all([occurrenceRecipients(o.unitId, o.concernId, tx), photosOfOccurrences([o.id], tx)]);
   const mail = occurrenceLoggedMail({
     unitNumber: facts.unitNumber,
     accountName: facts.accountName,
@@ -28,5 +30,5 @@ export async function notifyOccurrence(occurrenceId: string): Promise<{ sent: nu
     url: appUrl(o.concernId ? `/concerns/${o.concernId}` : `/units/${o.unitId}#occurrences`),
     timeZone: env().APP_TIME_ZONE,
   });
-  return sendMail(to, mail, "occurrence-logged");
+  await queueMail(tx, { to, template: "occurrence-logged", mail });
 }

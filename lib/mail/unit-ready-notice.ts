@@ -1,23 +1,23 @@
 import { eq } from "drizzle-orm";
-import { getDb } from "@/db/client";
+import type { Tx } from "@/db/client";
 import { accountRecipients } from "@/db/queries/recipients";
 import { shopSettings, units, workOrders } from "@/db/schema";
 import { workOrderLabel } from "@/lib/domain";
-import { appUrl, sendMail } from "./send";
+import { queueMail } from "./queue";
+import { appUrl } from "./send";
 import { unitReadyMail } from "./templates/unit-ready";
 
-/** Tells the unit's account (approvers and viewers) that it can be picked up. */
-export async function sendUnitReadyNotice(workOrderId: string, note: string): Promise<{ sent: number; failed: number }> {
-  const db = getDb();
-  const [row] = await db
+/** Queues, in the status move's transaction, the e-mail telling the account (approvers and viewers) it can be picked up. */
+export async function queueUnitReadyNotice(tx: Tx, workOrderId: string, note: string): Promise<void> {
+  const [row] = await tx
     .select({ number: workOrders.number, accountId: workOrders.accountId, unitId: units.id, unitNumber: units.unitNumber, unitDescription: units.description })
     .from(workOrders)
     .innerJoin(units, eq(units.id, workOrders.unitId))
     .where(eq(workOrders.id, workOrderId))
     .limit(1);
-  if (!row) return { sent: 0, failed: 0 };
-  const [settings] = await db.select({ shopName: shopSettings.shopName }).from(shopSettings).limit(1);
-  const to = await accountRecipients(row.accountId, ["approver", "viewer"]);
+  if (!row) return;
+  const [settings] = await tx.select({ shopName: shopSettings.shopName }).from(shopSettings).limit(1);
+  const to = await accountRecipients(row.accountId, ["approver", "viewer"], tx);
   const mail = unitReadyMail({
     shopName: settings?.shopName ?? "The shop",
     unitNumber: row.unitNumber,
@@ -26,5 +26,5 @@ export async function sendUnitReadyNotice(workOrderId: string, note: string): Pr
     note,
     url: appUrl(`/fleet/units/${row.unitId}`),
   });
-  return sendMail(to, mail, "unit-ready");
+  await queueMail(tx, { to, template: "unit-ready", mail });
 }

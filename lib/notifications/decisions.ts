@@ -1,11 +1,13 @@
-import type { BatchOk } from "@/lib/estimate";
-import type { SessionUser } from "@/lib/auth/session-user";
+import type { Tx } from "@/db/client";
 import { describeDecisions } from "@/db/queries/decisions";
-import { deliverLater } from "@/lib/mail/deliver";
-import { notifyDecisionMade } from "./estimate";
+import type { SessionUser } from "@/lib/auth/session-user";
+import type { BatchOk } from "@/lib/estimate";
+import { queueDecisionMade } from "./estimate";
 
-/** After a decision commits: tell the writer, outside the request's critical path. */
-export function afterDecision(user: SessionUser, workOrderId: string, result: BatchOk): Promise<void> {
-  const stillPending = result.lines.filter((l) => l.state === "proposed").length;
-  return deliverLater(() => notifyDecisionMade(workOrderId, user.name, describeDecisions(result.changes), stillPending));
+/** Passed to decide(): in the decision's own transaction, queue the writer's e-mail about it. */
+export function decisionNotice(user: SessionUser) {
+  return async (tx: Tx, { result, wo }: { result: BatchOk; wo: { id: string } }): Promise<void> => {
+    const stillPending = result.lines.filter((l) => l.state === "proposed").length;
+    await queueDecisionMade(tx, wo.id, { approverName: user.name, summary: describeDecisions(result.changes), stillPending });
+  };
 }

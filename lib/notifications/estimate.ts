@@ -1,44 +1,73 @@
+import { and, eq } from "drizzle-orm";
+import type { Reader, Tx } from "@/db/client";
 import { accountRecipients, shopRecipients, userEmail } from "@/db/queries/recipients";
 import { workOrderForMail } from "@/db/queries/work-order-detail";
+import { estimateLines, findings } from "@/db/schema";
 import { workOrderLabel } from "@/lib/domain";
-import { appUrl, sendMail } from "@/lib/mail/send";
-import { decisionMadeMail, estimateReadyMail, lineReopenedMail, timeBoxReachedMail } from "@/lib/mail/templates/estimate";
+import { queueMail } from "@/lib/mail/queue";
+import { appUrl } from "@/lib/mail/send";
+import { lineAmountCents } from "@/lib/money";
+import { decisionsMadeMail, estimateReadyMail, lineReopenedMail, timeBoxReachedMail, type DecisionEvent } from "@/lib/mail/templates/estimate";
 
+/**
+ * The estimate's e-mails. Each is queued inside the transaction of the change
+ * it reports, reading through that transaction, so what it says is what was
+ * committed.
+ */
 type WoRef = Awaited<ReturnType<typeof workOrderForMail>>;
 
 const fleetLink = (woId: string) => appUrl(`/fleet/work-orders/${woId}`);
 const shopLink = (woId: string) => appUrl(`/work-orders/${woId}`);
 
+/** Decisions on one work order within this long of the first go to each writer as one message. */
+export const DECISION_MAIL_WINDOW_MS = 2 * 60_000;
+
 /** The writer who opened the work order, or every writer when it was someone else. */
-async function writersFor(wo: WoRef): Promise<string[]> {
-  const own = await userEmail(wo.createdBy);
-  const writers = await shopRecipients(["writer"]);
+async function writersFor(wo: WoRef, db: Reader): Promise<string[]> {
+  const own = await userEmail(wo.createdBy, db);
+  const writers = await shopRecipients(["writer"], db);
   return own.length && writers.includes(own[0]!) ? own : writers;
 }
 
-export async function notifyEstimateReady(workOrderId: string, lineCount: number, pendingCents: number, outOfService: boolean) {
-  const wo = await workOrderForMail(workOrderId);
-  const to = await accountRecipients(wo.accountId, ["approver"]);
+/** The approvers' e-mail when lines are sent for decision: what waits, and whether anything was marked Out of service. */
+export async function queueEstimateReady(tx: Tx, workOrderId: string, lineCount: number) {
+  const wo = await workOrderForMail(workOrderId, tx);
+  const [waiting, severe] = await Promise.all([
+    tx.select({ q: estimateLines.quantityMilli, p: estimateLines.unitPriceCents }).from(estimateLines).where(and(eq(estimateLines.workOrderId, wo.id), eq(estimateLines.state, "proposed"))),
+    tx.select({ id: findings.id }).from(findings).where(and(eq(findings.workOrderId, wo.id), eq(findings.severity, "out_of_service"))).limit(1),
+  ]);
+  const pendingCents = waiting.reduce((sum, l) => sum + lineAmountCents(l.q, l.p), 0);
+  const outOfService = severe.length > 0;
+  const to = await accountRecipients(wo.accountId, ["approver"], tx);
   const mail = estimateReadyMail({ woLabel: workOrderLabel(wo.number), unitNumber: wo.unitNumber, title: wo.title, lineCount, pendingCents, outOfService, url: fleetLink(wo.id) });
-  return sendMail(to, mail, "estimate_ready");
+  await queueMail(tx, { to, template: "estimate_ready", mail });
 }
 
-export async function notifyDecisionMade(workOrderId: string, approverName: string, summary: string, stillPending: number) {
-  const wo = await workOrderForMail(workOrderId);
-  const mail = decisionMadeMail({ woLabel: workOrderLabel(wo.number), unitNumber: wo.unitNumber, approverName, summary, stillPending, url: shopLink(wo.id) });
-  return sendMail(await writersFor(wo), mail, "decision_made");
+export async function queueDecisionMade(tx: Tx, workOrderId: string, decision: DecisionEvent) {
+  const wo = await workOrderForMail(workOrderId, tx);
+  const woLabel = workOrderLabel(wo.number);
+  await queueMail(tx, {
+    to: await writersFor(wo, tx),
+    template: "decision_made",
+    group: {
+      key: `decision_made:${wo.id}`,
+      windowMs: DECISION_MAIL_WINDOW_MS,
+      item: decision,
+      compose: (decisions) => decisionsMadeMail({ woLabel, unitNumber: wo.unitNumber, decisions, url: shopLink(wo.id) }),
+    },
+  });
 }
 
-export async function notifyLineReopened(workOrderId: string, line: { description: string; approvedCents: number; revisedCents: number; reason: string }) {
-  const wo = await workOrderForMail(workOrderId);
-  const to = await accountRecipients(wo.accountId, ["approver"]);
+export async function queueLineReopened(tx: Tx, workOrderId: string, line: { description: string; approvedCents: number; revisedCents: number; reason: string }) {
+  const wo = await workOrderForMail(workOrderId, tx);
+  const to = await accountRecipients(wo.accountId, ["approver"], tx);
   const mail = lineReopenedMail({ woLabel: workOrderLabel(wo.number), unitNumber: wo.unitNumber, ...line, url: fleetLink(wo.id) });
-  return sendMail(to, mail, "line_reopened");
+  await queueMail(tx, { to, template: "line_reopened", mail });
 }
 
-export async function notifyTimeBoxReached(workOrderId: string, description: string, approvedHours: string) {
-  const wo = await workOrderForMail(workOrderId);
+export async function queueTimeBoxReached(tx: Tx, workOrderId: string, description: string, approvedHours: string) {
+  const wo = await workOrderForMail(workOrderId, tx);
   const base = { woLabel: workOrderLabel(wo.number), unitNumber: wo.unitNumber, description, approvedHours };
-  await sendMail(await writersFor(wo), timeBoxReachedMail({ ...base, url: shopLink(wo.id), forFleet: false }), "time_box_reached");
-  await sendMail(await accountRecipients(wo.accountId, ["approver"]), timeBoxReachedMail({ ...base, url: fleetLink(wo.id), forFleet: true }), "time_box_reached");
+  await queueMail(tx, { to: await writersFor(wo, tx), template: "time_box_reached", mail: timeBoxReachedMail({ ...base, url: shopLink(wo.id), forFleet: false }) });
+  await queueMail(tx, { to: await accountRecipients(wo.accountId, ["approver"], tx), template: "time_box_reached", mail: timeBoxReachedMail({ ...base, url: fleetLink(wo.id), forFleet: true }) });
 }

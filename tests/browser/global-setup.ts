@@ -1,6 +1,5 @@
 import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import { existsSync, mkdirSync, rmSync } from "node:fs";
-import { createServer } from "node:net";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
 import { migrateDatabase } from "@/db/migrate";
@@ -8,6 +7,7 @@ import { seedDatabase } from "@/db/seed";
 import { startFakeSmtp } from "@/mocks/smtp/server";
 import { startFakeStripe } from "@/mocks/stripe/server";
 import { startFakeUploadThing } from "@/mocks/uploadthing/server";
+import { freePort } from "./app-process";
 
 const root = path.join(import.meta.dirname, "..", "..");
 // A separate build directory per checkout or worktree lets test runs sit side by side.
@@ -25,16 +25,6 @@ declare module "vitest" {
     /** The test build's directory, for tests that start a server of their own. */
     distDir: string;
   }
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
-    });
-  });
 }
 
 async function waitForHealth(url: string, server: ChildProcess, timeoutMs = 60_000): Promise<void> {

@@ -1,54 +1,25 @@
 // Start-up (issue 9): a production server with a half-made configuration
 // stops at once and says which variable; the demo and a full set start.
 // Each case spawns `next start` on the test build with its own environment.
-import { spawn } from "node:child_process";
-import { createServer } from "node:net";
+import { mkdtempSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
 import path from "node:path";
-import { describe, expect, it } from "vitest";
-import { inject } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { migrateDatabase } from "@/db/migrate";
+import { startApp } from "./app-process";
 
-const root = path.join(import.meta.dirname, "..", "..");
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
-    });
-  });
-}
+// A database of its own: a server started here must not touch (or send) the shared test server's mail.
+const dir = mkdtempSync(path.join(tmpdir(), "cotter-start-up-"));
+const dbUrl = `file:${path.join(dir, "cotter.db")}`;
+beforeAll(() => migrateDatabase(dbUrl));
+afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 /** Starts the server; resolves with its exit code and output, or "running" once it answers (then stops it). */
 async function start(extra: Record<string, string>): Promise<{ outcome: number | "running"; output: string }> {
-  const port = await freePort();
-  const env: NodeJS.ProcessEnv = {
-    PATH: process.env.PATH ?? "",
-    HOME: process.env.HOME ?? "",
-    NEXT_DIST_DIR: inject("distDir"),
-    NEXT_TELEMETRY_DISABLED: "1",
-    NODE_ENV: "production",
-    DATABASE_URL: inject("dbUrl"),
-    ...extra,
-  };
-  const child = spawn(path.join(root, "node_modules", ".bin", "next"), ["start", "-p", String(port), "-H", "127.0.0.1"], { cwd: root, env, stdio: ["ignore", "pipe", "pipe"] });
-  let output = "";
-  child.stdout.on("data", (d: Buffer) => (output += d.toString()));
-  child.stderr.on("data", (d: Buffer) => (output += d.toString()));
-  const exited = new Promise<number>((resolve) => child.on("exit", (code) => resolve(code ?? -1)));
-  const deadline = Date.now() + 30_000;
-  while (Date.now() < deadline) {
-    const code = await Promise.race([exited, new Promise<null>((r) => setTimeout(() => r(null), 300))]);
-    if (code !== null) return { outcome: code, output };
-    const ok = await fetch(`http://127.0.0.1:${port}/api/v1/health`).then((r) => r.ok, () => false);
-    if (ok) {
-      child.kill("SIGTERM");
-      await exited;
-      return { outcome: "running", output };
-    }
-  }
-  child.kill("SIGKILL");
-  throw new Error(`the server neither started nor stopped:\n${output}`);
+  const app = await startApp({ DATABASE_URL: dbUrl, ...extra });
+  const outcome = await app.ready();
+  await app.stop();
+  return { outcome, output: app.output() };
 }
 
 const SECRET = "start-up-tests-secret-start-up-tests-secret";

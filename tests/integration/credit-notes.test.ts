@@ -7,7 +7,7 @@ import { count, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { GET as exportCsv } from "@/app/api/v1/accounts/[id]/export/route";
 import { GET as getInvoice } from "@/app/api/v1/invoices/[id]/route";
-import { getDb } from "@/db/client";
+import { getDb, writeTx } from "@/db/client";
 import { setCoreReturned } from "@/db/queries/core-returns";
 import { issueCreditNote } from "@/db/queries/credit-notes";
 import { issueInvoice } from "@/db/queries/invoice-issue";
@@ -16,7 +16,7 @@ import { recordManualPayment, voidInvoice } from "@/db/queries/payments";
 import { creditNotes, invoices } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
-import { notifyCreditNote } from "@/lib/mail/invoice-notices";
+import { queueCreditNote } from "@/lib/mail/invoice-notices";
 import { formatCents } from "@/lib/money";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { call } from "./helpers/app";
@@ -62,7 +62,7 @@ describe("credit notes on an issued invoice", () => {
     expect(result.creditNote?.label).toBe("CN-1");
     // The account's billing address hears of it, with what is still owed.
     const mail = smtp.waitFor((m) => m.to.includes(OFFICE) && m.subject === "Credit CN-1: $30.00 off invoice " + before.label);
-    await notifyCreditNote(result.creditNote!.id);
+    await writeTx((tx) => queueCreditNote(tx, result.creditNote!.id));
     expect((await mail).text).toContain(`${formatCents(before.totalCents - 3_000)} is still open on this invoice.`);
     const after = await detail();
     expect(after.lines).toEqual(before.lines);

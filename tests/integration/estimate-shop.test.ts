@@ -6,9 +6,10 @@ import { addLine, bringBackDeferred, editLine } from "@/db/queries/estimate-line
 import { sendEstimate, startUnderStanding } from "@/db/queries/estimate-send";
 import { clockIn, clockOut } from "@/db/queries/time-clock";
 import { accounts, auditLog, estimateLines, timeEntries, workOrders } from "@/db/schema";
-import { getDb } from "@/db/client";
+import { getDb, writeTx } from "@/db/client";
 import { resetEnvCache } from "@/lib/env";
-import { notifyDecisionMade, notifyEstimateReady, notifyLineReopened } from "@/lib/notifications/estimate";
+import { deliverDueMail } from "@/lib/mail/worker";
+import { DECISION_MAIL_WINDOW_MS, queueDecisionMade, queueEstimateReady, queueLineReopened } from "@/lib/notifications/estimate";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { sessionUser } from "./helpers/app";
 import { lineByDescription, linesOf, workOrderByNumber } from "./helpers/work-orders";
@@ -51,7 +52,7 @@ describe("the writer's estimate: revise, start under standing authorisation, bri
     expect(back.line).toMatchObject({ state: "proposed", approvedByUserId: null, approvedAmountCents: null, approvedAt: null });
     expect(back.reason).toMatch(/\$18\.64/);
 
-    await notifyLineReopened(wo.id, { description: again.description, approvedCents: 18_640, revisedCents: 20_505, reason: back.reason ?? "" });
+    await writeTx((tx) => queueLineReopened(tx, wo.id, { description: again.description, approvedCents: 18_640, revisedCents: 20_505, reason: back.reason ?? "" }));
     // One message per approver, so nobody sees the others' addresses.
     const mail = await smtp.waitFor((m) => m.subject.includes("needs your approval again") && m.to.includes("supervisor@brennan-twp.example"));
     await smtp.waitFor((m) => m.subject.includes("needs your approval again") && m.to.includes("trustee@brennan-twp.example"));
@@ -79,7 +80,7 @@ describe("the writer's estimate: revise, start under standing authorisation, bri
     const [after] = await getDb().select().from(workOrders).where(eq(workOrders.id, wo.id));
     expect(after!.status).toBe("waiting_approval");
     expect((await linesOf(wo.id)).filter((l) => l.state === "proposed")).toHaveLength(1);
-    await notifyEstimateReady(wo.id, sentCount, 7_750, false);
+    await writeTx((tx) => queueEstimateReady(tx, wo.id, sentCount));
     const mail = await smtp.waitFor((m) => m.subject.includes("Bus 9") && m.subject.includes("estimate ready"));
     expect(mail.to).toEqual(["transport@alder-falls-schools.example"]);
     expect(mail.text).toContain(`http://localhost:3000/fleet/work-orders/${wo.id}`);
@@ -87,7 +88,9 @@ describe("the writer's estimate: revise, start under standing authorisation, bri
 
   it("tells the writer when the approver decides", async () => {
     const wo = await workOrderByNumber(1042);
-    await notifyDecisionMade(wo.id, "Gary Holm", "approve 1 line ($186.40)", 9);
+    await writeTx((tx) => queueDecisionMade(tx, wo.id, { approverName: "Gary Holm", summary: "approve 1 line ($186.40)", stillPending: 9 }));
+    // Decisions wait two minutes for others to join them; the worker is asked as if that time has come.
+    await deliverDueMail(new Date(Date.now() + DECISION_MAIL_WINDOW_MS + 1000));
     const mail = await smtp.waitFor((m) => m.subject.includes("Gary Holm decided"));
     expect(mail.to).toEqual(["writer@quarry-road.example"]);
     expect(mail.text).toContain(`/work-orders/${wo.id}`);

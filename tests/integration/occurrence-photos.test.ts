@@ -17,7 +17,7 @@ import { GET as getOne, PATCH as patch } from "@/app/api/v1/units/[id]/occurrenc
 import type { PhotoRouter } from "@/app/api/uploadthing/core";
 import { GET as utGet, POST as utPost } from "@/app/api/uploadthing/route";
 import { getDb } from "@/db/client";
-import { mailLog, occurrences, photos, units, workOrders } from "@/db/schema";
+import { mailOutbox, occurrences, photos, units, workOrders } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { jpegHasGps } from "@/lib/uploads/exif-gps";
 import type { PhotoUploadResult } from "@/lib/uploads/store-photo";
@@ -69,9 +69,9 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  // Mail goes out after each response: let it land before the mail catcher stops.
+  // Queued mail goes out within moments: let it land before the mail catcher stops.
   for (let i = 0; i < 100; i += 1) {
-    const [row] = await getDb().select({ n: count() }).from(mailLog).where(eq(mailLog.template, "occurrence-logged"));
+    const [row] = await getDb().select({ n: count() }).from(mailOutbox).where(and(eq(mailOutbox.template, "occurrence-logged"), eq(mailOutbox.status, "sent")));
     if ((row?.n ?? 0) >= posted * 2) break;
     await new Promise((r) => setTimeout(r, 100));
   }

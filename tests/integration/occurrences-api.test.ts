@@ -4,7 +4,7 @@ import { GET as list, POST as post } from "@/app/api/v1/units/[id]/occurrences/r
 import { GET as getOne, PATCH as patch } from "@/app/api/v1/units/[id]/occurrences/[occurrenceId]/route";
 import { getDb } from "@/db/client";
 import { closeConcern, markIntermittent } from "@/db/queries/intermittent-concerns";
-import { concerns, mailLog, occurrences, units } from "@/db/schema";
+import { concerns, mailOutbox, occurrences, units } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { celsiusFromFahrenheit } from "@/lib/occurrences/temperature";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
@@ -69,9 +69,9 @@ beforeAll(async () => {
 });
 
 afterAll(async () => {
-  // Mail goes out after each response; let every message (a writer and a technician per entry) land first.
+  // Queued mail goes out within moments; let every message (a writer and a technician per entry) land first.
   for (let i = 0; i < 100; i += 1) {
-    const [row] = await getDb().select({ n: count() }).from(mailLog).where(eq(mailLog.template, "occurrence-logged"));
+    const [row] = await getDb().select({ n: count() }).from(mailOutbox).where(and(eq(mailOutbox.template, "occurrence-logged"), eq(mailOutbox.status, "sent")));
     if ((row?.n ?? 0) >= posted * 2) break;
     await new Promise((r) => setTimeout(r, 100));
   }

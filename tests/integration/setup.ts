@@ -7,6 +7,7 @@ import { closeDb } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
 import { seedDatabase } from "@/db/seed";
 import { resetEnvCache } from "@/lib/env";
+import { stopMailWorker } from "@/lib/mail/worker";
 
 const dir = path.join(import.meta.dirname, "..", ".artifacts", "integration");
 mkdirSync(dir, { recursive: true });
@@ -22,7 +23,9 @@ await migrateDatabase(url);
 // Demo photos need the upload service and take seconds to draw; tests that need photos upload their own.
 await seedDatabase(url, { photos: false });
 
-afterAll(() => {
+afterAll(async () => {
+  // The mail worker starts by itself when a test queues mail; it must be done before the file goes.
+  await stopMailWorker();
   closeDb();
   for (const suffix of ["", "-wal", "-shm"]) rmSync(`${file}${suffix}`, { force: true });
 });

@@ -9,7 +9,7 @@ import { eq } from "drizzle-orm";
 import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import { GET as exportCsv } from "@/app/api/v1/accounts/[id]/export/route";
 import { GET as statement } from "@/app/api/v1/accounts/[id]/statement/route";
-import { getDb } from "@/db/client";
+import { getDb, writeTx } from "@/db/client";
 import { issueInvoice } from "@/db/queries/invoice-issue";
 import { recordManualPayment } from "@/db/queries/payments";
 import { receivables } from "@/db/queries/statement";
@@ -17,7 +17,7 @@ import { accounts, invoices, units, users, workOrders } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { HttpError } from "@/lib/http/problem";
 import { CSV_COLUMNS } from "@/lib/invoices/csv";
-import { notifyPaymentReceived } from "@/lib/mail/invoice-notices";
+import { queuePaymentReceived } from "@/lib/mail/invoice-notices";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { call, sessionUser, userByEmail } from "./helpers/app";
 import { asUser, setLines } from "./helpers/billing";
@@ -87,7 +87,7 @@ describe("payments the shop records by hand", () => {
     // The receipt goes out straight after each payment (the server action sends it).
     const subject = `Receipt: $100.00 for invoice INV-${await numberOf("c")}`;
     const receipt = smtp.waitFor((m) => m.to.includes("clerk@cedar-hollow.example") && m.subject === subject);
-    await notifyPaymentReceived(first.paymentId);
+    await writeTx((tx) => queuePaymentReceived(tx, first.paymentId));
     expect((await receipt).text).toContain("$200.00 is still open on this invoice.");
     expect((await pay("c", 5_000, "2026-06-20T15:00:00.000Z", "transfer")).balanceCents).toBe(15_000);
     expect((await refusal(pay("c", 15_001, "2026-06-25T15:00:00.000Z"))).detail).toBe("$150.01 is more than the open balance of $150.00.");

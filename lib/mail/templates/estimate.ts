@@ -27,20 +27,26 @@ export function estimateReadyMail(p: {
   });
 }
 
-export function decisionMadeMail(p: {
-  woLabel: string;
-  unitNumber: string;
+export interface DecisionEvent {
   approverName: string;
+  /** e.g. "approved 1 line ($186.40)" */
   summary: string;
+  /** Lines still waiting once this decision was made. */
   stillPending: number;
-  url: string;
-}): RenderedMail {
+}
+
+/** One message for every decision made on a work order within a short window (the writer gets one e-mail, not three). */
+export function decisionsMadeMail(p: { woLabel: string; unitNumber: string; decisions: DecisionEvent[]; url: string }): RenderedMail {
+  const names = [...new Set(p.decisions.map((d) => d.approverName))];
+  const who = names.length === 1 ? names[0]! : `${names.slice(0, -1).join(", ")} and ${names.at(-1)}`;
+  const stillPending = p.decisions.at(-1)?.stillPending ?? 0;
+  const many = p.decisions.length > 1;
   return renderMail({
-    subject: `${p.woLabel} · ${p.unitNumber}: ${p.approverName} decided`,
-    heading: `${p.approverName} decided on ${p.unitNumber}`,
+    subject: many ? `${p.woLabel} · ${p.unitNumber}: ${p.decisions.length} decisions by ${who}` : `${p.woLabel} · ${p.unitNumber}: ${who} decided`,
+    heading: `${who} decided on ${p.unitNumber}`,
     paragraphs: [
-      `${p.approverName} ${p.summary}.`,
-      p.stillPending ? `${p.stillPending} line${p.stillPending === 1 ? " is" : "s are"} still waiting on a decision.` : "Every line on the estimate has a decision.",
+      ...p.decisions.map((d) => `${d.approverName} ${d.summary}.`),
+      stillPending ? `${stillPending} line${stillPending === 1 ? " is" : "s are"} still waiting on a decision.` : "Every line on the estimate has a decision.",
     ],
     action: { label: "Open the work order", url: p.url },
   });

@@ -2,8 +2,7 @@ import { applyStripeEvent } from "@/db/queries/stripe-events";
 import { errorResponse } from "@/lib/http/api-route";
 import { HttpError, problemResponse } from "@/lib/http/problem";
 import { readUpTo } from "@/lib/http/read-body";
-import { notifyPaymentFlagged, notifyPaymentReceived } from "@/lib/mail/invoice-notices";
-import { deliverLater } from "@/lib/mail/deliver";
+import { queuePaymentFlagged, queuePaymentReceived } from "@/lib/mail/invoice-notices";
 import { verifyWebhookEvent, type Stripe } from "@/lib/payments/stripe";
 
 export const dynamic = "force-dynamic";
@@ -30,14 +29,12 @@ export async function POST(request: Request): Promise<Response> {
     );
   }
   try {
-    const result = await applyStripeEvent(event);
-    if (result.outcome === "payment_recorded") {
-      const { paymentId, flagged } = result;
-      void deliverLater(async () => {
-        await notifyPaymentReceived(paymentId);
-        if (flagged) await notifyPaymentFlagged(paymentId);
-      });
-    }
+    // The receipt (and the shop's notice of a payment held for review) are queued with the payment itself.
+    const result = await applyStripeEvent(event, async (tx, outcome) => {
+      if (outcome.outcome !== "payment_recorded") return;
+      await queuePaymentReceived(tx, outcome.paymentId);
+      if (outcome.flagged) await queuePaymentFlagged(tx, outcome.paymentId);
+    });
     return Response.json({ received: true, outcome: result.outcome });
   } catch (error) {
     // A failure rolls the event back; a 5xx makes the service deliver it again.

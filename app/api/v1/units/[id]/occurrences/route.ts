@@ -3,8 +3,7 @@ import { addOccurrence, getOccurrence, listOccurrences } from "@/db/queries/occu
 import { CAN } from "@/lib/auth/policy";
 import { apiRoute, idParams } from "@/lib/http/api-route";
 import { pageQuery } from "@/lib/http/pagination";
-import { deliverLater } from "@/lib/mail/deliver";
-import { notifyOccurrence } from "@/lib/mail/notify-occurrence";
+import { queueOccurrenceNotice } from "@/lib/mail/notify-occurrence";
 import { occurrenceInput } from "@/lib/validation/occurrence";
 
 export const dynamic = "force-dynamic";
@@ -16,9 +15,8 @@ export const GET = apiRoute({ roles: CAN.logOccurrence, params: idParams, query:
   listOccurrences(user, params.id, query),
 );
 
-/** Logs one occurrence; the writer and the technician get an e-mail after the response. */
+/** Logs one occurrence; the e-mail to the writer and the technician is queued with it. */
 export const POST = apiRoute({ roles: CAN.logOccurrence, params: idParams, body: occurrenceInput }, async ({ user, params, body }) => {
-  const created = await addOccurrence(user, params.id, body);
-  void deliverLater(() => notifyOccurrence(created.id));
+  const created = await addOccurrence(user, params.id, body, (tx, row) => queueOccurrenceNotice(tx, row.id));
   return Response.json(await getOccurrence(user, params.id, created.id), { status: 201 });
 });
