@@ -6,7 +6,7 @@ export function shopNav(role: Role): NavItem[] {
   const items: NavItem[] = [{ href: "/floor", label: "Floor" }];
   if (hasRole({ role }, CAN.issueInvoices)) items.push({ href: "/invoices", label: "Invoices" }, { href: "/receivables", label: "Receivables" });
   if (role === "owner" || role === "writer") items.push({ href: "/accounts", label: "Accounts" });
-  if (role === "owner") items.push({ href: "/settings", label: "Settings" }, { href: "/settings/people", label: "People" }, { href: "/settings/mail", label: "Outgoing mail" });
+  if (role === "owner") items.push({ href: "/settings", label: "Settings" }, { href: "/settings/people", label: "People" }, { href: "/settings/mail", label: "Mail" });
   return items;
 }
 

@@ -4,7 +4,7 @@ import { CotterMark } from "./app-shell";
 /** Shown instead of a page the caller's role may not open: says so plainly and points home, and shows nothing of the page. */
 export function TurnedAway({ name, home, staff }: { name: string | null; home: string; staff: boolean }) {
   return (
-    <main className="mx-auto flex min-h-dvh max-w-md flex-col justify-center gap-4 px-5" data-testid="turned-away">
+    <main className="mx-auto flex max-w-md flex-col gap-4 px-5 py-12" data-testid="turned-away">
       <CotterMark size={40} />
       <h1 className="text-2xl font-bold">{staff ? "Your role does not open this page" : "This page is for shop staff"}</h1>
       <p className="text-ink-soft">
