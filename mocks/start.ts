@@ -23,7 +23,7 @@ async function main() {
     const payments = await startFakeStripe({
       port: Number(process.env.FAKE_STRIPE_PORT ?? 12111),
       webhookUrl,
-      webhookSecret: process.env.STRIPE_WEBHOOK_SECRET ?? "whsec_cotter_local_fake",
+      webhookSecret: process.env.STRIPE_WEBHOOK_SECRET || "whsec_cotter_local_fake",
       stateFile: "mocks/.storage/payments.json",
       log: (line) => {
         if (!/^(GET|POST) /.test(line)) console.log(`[fake-payments] ${line}`);
