@@ -1,19 +1,9 @@
 import { spawn, type ChildProcess } from "node:child_process";
-import { createServer } from "node:net";
 import path from "node:path";
 import { inject } from "vitest";
+import { freePort } from "@/tests/support/ports";
 
 const root = path.join(import.meta.dirname, "..", "..");
-
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
-    });
-  });
-}
 
 export interface AppProcess {
   url: string;

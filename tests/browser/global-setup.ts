@@ -7,7 +7,7 @@ import { seedDatabase } from "@/db/seed";
 import { startFakeSmtp } from "@/mocks/smtp/server";
 import { startFakeStripe } from "@/mocks/stripe/server";
 import { startFakeUploadThing } from "@/mocks/uploadthing/server";
-import { freePort } from "./app-process";
+import { freePort } from "@/tests/support/ports";
 
 const root = path.join(import.meta.dirname, "..", "..");
 // A separate build directory per checkout or worktree lets test runs sit side by side.

@@ -13,7 +13,8 @@ import { migrateDatabase } from "@/db/migrate";
 import { seedDatabase } from "@/db/seed";
 import { mailOutbox, users, workOrders } from "@/db/schema";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
-import { freePort, startApp, type AppProcess } from "./app-process";
+import { freePort } from "@/tests/support/ports";
+import { startApp, type AppProcess } from "./app-process";
 
 const SECRET = "mail-restart-tests-secret-mail-restart";
 const dir = mkdtempSync(path.join(tmpdir(), "cotter-mail-restart-"));

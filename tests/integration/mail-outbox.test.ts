@@ -3,7 +3,6 @@
 // exactly once when it is back, given up on after the retry schedule, sent
 // again by a person; decisions on one work order within two minutes go to the
 // writer as one message (issue 11, item 8).
-import { createServer } from "node:net";
 import { and, eq, like } from "drizzle-orm";
 import { afterAll, beforeAll, beforeEach, describe, expect, it } from "vitest";
 import { POST as decideLine } from "@/app/api/v1/lines/[id]/decision/route";
@@ -18,16 +17,8 @@ import { DECISION_MAIL_WINDOW_MS } from "@/lib/notifications/estimate";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { call, sessionUser } from "./helpers/app";
 import { linesOf, workOrderByNumber } from "./helpers/work-orders";
+import { freePort } from "@/tests/support/ports";
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
-    });
-  });
-}
 
 const mail = (subject: string) => ({ subject, text: `${subject}\n`, html: `<p>${subject}</p>`, link: "http://localhost:3000/floor" });
 const later = (ms: number) => new Date(Date.now() + ms);

@@ -5,7 +5,6 @@
  * scheme: HMAC-SHA256 over "<t>.<raw body>" as the SDK verifies it (stripe-node
  * esm/Webhooks.js); "delivered at least once" per the service's public docs (from memory).
  */
-import { createServer } from "node:net";
 import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { POST as checkout } from "@/app/api/v1/invoices/[id]/checkout/route";
@@ -19,18 +18,10 @@ import { signatureHeader, startFakeStripe, type FakeStripe } from "@/mocks/strip
 import { call } from "./helpers/app";
 import { asUser } from "./helpers/billing";
 import { serveFetchHandler } from "./helpers/serve-fetch-handler";
+import { freePort } from "@/tests/support/ports";
 
 const SECRET = "whsec_integration_test_secret";
 
-function closedPort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
-    });
-  });
-}
 let fake: FakeStripe;
 let app: { url: string; close(): Promise<void> };
 let smtp: FakeSmtp;
@@ -179,7 +170,7 @@ describe("the payment service not answering", () => {
     const inv = await unpaidInvoiceOf("Kettle Ridge Stone Co.", used);
     const before = { sessions: await getDb().select().from(checkoutSessions), audit: await getDb().select().from(auditLog) };
     // A port where nothing listens: the SDK's connection is refused, as when the service is down.
-    process.env.FAKE_STRIPE_PORT = String(await closedPort());
+    process.env.FAKE_STRIPE_PORT = String(await freePort());
     resetEnvCache();
     try {
       const res = await call(checkout, { path: "/x", method: "POST", params: { id: inv.id }, as: "office@kettle-ridge.example" });
