@@ -103,7 +103,7 @@ async function settleWaitingLines(tx: Tx, user: SessionUser, wo: Visit, move: St
     throw forbidden("Lines on this visit still wait for the customer. The owner or a service writer decides what becomes of them and releases it.");
   }
   const state = move.pendingLines === "hold" ? "held" : "declined";
-  const note = move.pendingLines === "hold" ? move.pendingNote || `Held for the next visit when ${label} was released.` : move.pendingNote;
+  const note = move.pendingNote || (move.pendingLines === "hold" ? `Held for the next visit when ${label} was released.` : "");
   for (const [i, l] of waiting.entries()) {
     await tx.update(estimateLines).set({ state, version: l.version + 1, reopenReason: null, updatedAt: at }).where(eq(estimateLines.id, l.id));
     await tx.insert(decisions).values({

@@ -7,7 +7,7 @@ export const statusMoveInput = z
     note: z.string().trim().max(500, "Keep the note under 500 characters.").default(""),
     /** Releasing with lines still waiting for the customer: keep them for the unit's next visit, or decline them. */
     pendingLines: z.enum(["hold", "decline"], { error: "Choose hold or decline for the lines still waiting." }).optional(),
-    pendingNote: z.string().trim().max(500, "Keep the note under 500 characters.").default(""),
+    pendingNote: z.string().trim().max(500, "Keep the note under 500 characters.").optional(),
   })
   .superRefine((v, ctx) => {
     if (v.pendingLines === "decline" && !v.pendingNote) {
