@@ -9,7 +9,7 @@ import { inject } from "vitest";
 import { openDatabase } from "@/db/client";
 import { CAN } from "@/lib/auth/policy";
 import { SHOP_ROLES } from "@/lib/domain";
-import { auditLog, users, checkoutSessions, decisions, estimateLines, findings, meterReadings, occurrences, payments, photos, statusEvents } from "@/db/schema";
+import { auditLog, checkoutSessions, decisions, estimateLines, findings, mailOutbox, meterReadings, occurrences, payments, photos, statusEvents, users } from "@/db/schema";
 import { appRoutes, fillPattern, pageSource, type AppRoute } from "@/tests/support/app-tree";
 import { accountIdOf, findLeak, idsOf, leakStrings, PARAM_MAP_FILE, paramValues, personasOf, removeSweepPeople, type Persona } from "./sweep/fixture";
 
@@ -26,7 +26,7 @@ const QUERY: Record<string, string> = {
 
 const handle = openDatabase(inject("dbUrl"));
 const db = handle.db;
-const tables = { auditLog, decisions, estimateLines, findings, meterReadings, occurrences, payments, photos, statusEvents, checkoutSessions };
+const tables = { auditLog, decisions, estimateLines, findings, mailOutbox, meterReadings, occurrences, payments, photos, statusEvents, checkoutSessions };
 
 async function fingerprint(): Promise<Record<string, number>> {
   const out: Record<string, number> = {};
