@@ -71,10 +71,12 @@ export const accounts = sqliteTable("accounts", {
   standingAuthorisationCents: integer("standing_authorisation_cents").notNull().default(0),
   repairBudgetCents: integer("repair_budget_cents"),
   fiscalYearStartMonth: integer("fiscal_year_start_month").notNull().default(1),
-  // Default allowance: 10 % capped at $50 (reference-values.md).
+  // Default allowance for a new account: the Florida shape, the greater of $10 or 10 %, never
+  // more than $50 (reference-values.md; lib/estimate DEFAULT_OVERRUN_POLICY). Existing accounts
+  // keep what they have: only the column default changed.
   overrunPercentMilli: integer("overrun_percent_milli").notNull().default(10_000),
   overrunCapCents: integer("overrun_cap_cents").default(5_000),
-  overrunFloorCents: integer("overrun_floor_cents").notNull().default(0),
+  overrunFloorCents: integer("overrun_floor_cents").notNull().default(1_000),
   shopSuppliesExempt: bool("shop_supplies_exempt").notNull().default(false),
   notes: text("notes").notNull().default(""),
   createdAt: createdAt(),

@@ -138,7 +138,7 @@ describe("account settings", () => {
     const [account] = await getDb().select().from(accounts).where(eq(accounts.name, "Kettle Ridge Stone Co."));
     const result = await updateAccountSettings(owner, {
       accountId: account!.id, standingAuthorisation: 75_000, repairBudget: 12_000_000, fiscalYearStartMonth: 1,
-      overrunPercent: 10_000, overrunCap: 1_000, overrunFloor: 0, taxExempt: false, taxExemptCertificate: "", taxRate: 6_250,
+      overrunPercent: 10_000, overrunCap: 1_000, overrunFloor: 1_000, taxExempt: false, taxExemptCertificate: "", taxRate: 6_250,
       poRequired: true, paymentTermsDays: 30, shopSuppliesExempt: false,
     });
     expect(result.changed).toBe(4);
