@@ -13,6 +13,7 @@ import { Timeline } from "@/components/work-order/timeline";
 import { Button } from "@/components/ui/button";
 import type { WorkOrderView } from "@/db/queries/work-order-view";
 import type { Decision } from "@/lib/domain";
+import { asSentence } from "@/lib/format";
 import { formatCents } from "@/lib/money";
 import { READING_CAUTION } from "@/lib/specs";
 import { ApprovalLine } from "./approval-line";
@@ -65,7 +66,7 @@ export function ApprovalView({
       });
       setBanner({ kind: "ok", text: success });
     } catch (error) {
-      let text = error instanceof ApiError ? error.message : "Cotter could not be reached. Nothing was decided; try again.";
+      let text = error instanceof ApiError ? asSentence(error.message) : "Cotter could not be reached. Nothing was decided; try again.";
       if (error instanceof ApiError && error.code === "signing_limit_exceeded") {
         text += " Another approver on your account with a higher signing limit can approve it.";
       }
