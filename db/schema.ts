@@ -323,6 +323,12 @@ export const estimateLines = sqliteTable(
     // Deferred work brought back on a later visit points at the line it came from.
     deferredFromLineId: text("deferred_from_line_id"),
     broughtBackAt: text("brought_back_at"),
+    // A diagnosis extension (more hours asked of the customer) points at the line whose time box it widens.
+    extendsLineId: text("extends_line_id"),
+    // The approved hours the last 80 % warning and 100 % notice of this line's time box went out for,
+    // so each goes once per box size (an extension starts again).
+    boxWarnedMilli: integer("box_warned_milli"),
+    boxReachedMilli: integer("box_reached_milli"),
     createdBy: text("created_by").references(() => users.id),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
@@ -361,10 +367,19 @@ export const timeEntries = sqliteTable(
     techId: text("tech_id").notNull().references(() => users.id),
     startedAt: text("started_at").notNull(),
     endedAt: text("ended_at"),
+    // On a diagnosis line: the instant this running clock stops by itself, when the time box fills.
+    // Every read counts a running entry up to it; the watcher and every clock write then close it.
+    stopAt: text("stop_at"),
+    stoppedBy: text("stopped_by", { enum: ["tech", "time_box"] }),
     note: text("note").notNull().default(""),
     createdAt: createdAt(),
   },
-  (t) => [index("time_entries_line_idx").on(t.lineId), index("time_entries_tech_idx").on(t.techId, t.endedAt)],
+  (t) => [
+    index("time_entries_line_idx").on(t.lineId),
+    index("time_entries_tech_idx").on(t.techId, t.endedAt),
+    // The watcher looks for running clocks by when they stop.
+    index("time_entries_running_stop_idx").on(t.endedAt, t.stopAt),
+  ],
 );
 
 export const invoices = sqliteTable(

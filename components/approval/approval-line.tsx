@@ -56,7 +56,11 @@ export function ApprovalLine({
         </div>
       </div>
       {children}
-      {line.reopenReason && pending ? <p className="mt-2 text-sm font-semibold text-rust-deep">Back for your approval: {line.reopenReason}</p> : null}
+      {line.reopenReason && pending ? (
+        <p className="mt-2 text-sm font-semibold text-rust-deep">
+          {line.extendsLineId ? "Why the shop asks for more time" : "Back for your approval"}: {line.reopenReason}
+        </p>
+      ) : null}
       <DecisionLine decision={line.decision} />
       {refusal ? (
         <p role="alert" className="mt-2 rounded-card border-2 border-rust bg-rust-wash px-3 py-2 text-sm font-semibold text-rust-deep" data-testid="refusal">

@@ -63,7 +63,11 @@ export function LineRow({
             )}
           </p>
         ) : null}
-        {line.reopenReason && line.state === "proposed" ? <p className="text-xs font-semibold text-rust-deep">Back for approval: {line.reopenReason}</p> : null}
+        {line.reopenReason && line.state === "proposed" ? (
+          <p className="text-xs font-semibold text-rust-deep">
+            {line.extendsLineId ? "More time asked for" : "Back for approval"}: {line.reopenReason}
+          </p>
+        ) : null}
         {line.deferredFromLineId ? <p className="text-xs text-ink-faint">Brought back from an earlier visit</p> : null}
         <DecisionLine decision={line.decision} />
       </td>

@@ -2,7 +2,7 @@ import { and, eq, inArray, isNull, ne, sql } from "drizzle-orm";
 import { writeTx, type Reader, type Tx } from "@/db/client";
 import { concerns, estimateLines, statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { isApprovedState, reviseLine } from "@/lib/estimate";
+import { boxRootId, isApprovedState, reviseLine } from "@/lib/estimate";
 import { conflict, invalidInput, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
 import { formatCents } from "@/lib/money";
@@ -10,6 +10,7 @@ import type { EditLineInput, NewLineInput } from "@/lib/validation/estimate-line
 import { recordAudit } from "./audit";
 import { loadEstimateContext, toAccountSettings, toEstimateLine, type EstimateContext } from "./estimate-context";
 import { scopedTo } from "./scope";
+import { planStops, settleTimeBoxes } from "./time-box-stops";
 
 export function assertOpen(ctx: EstimateContext): void {
   if (ctx.wo.status === "released") throw conflict("work_order_closed", "This work order was released; open a new one for more work.");
@@ -136,6 +137,11 @@ export async function editLine(user: SessionUser, input: EditLineInput): Promise
       });
     }
     await tx.update(workOrders).set({ updatedAt: at }).where(eq(workOrders.id, ctx.wo.id));
+    if (line.isDiagnosis || row!.isDiagnosis) {
+      // The box changed size: settle what already stopped, then re-plan the running clocks.
+      await settleTimeBoxes(tx, at);
+      await planStops(tx, boxRootId(line), at);
+    }
     await recordAudit(tx, user, {
       action: back ? "line.reopened" : "line.edited",
       entityType: "line",

@@ -73,6 +73,7 @@ export async function workOrderView(user: SessionUser, id: string) {
         byStanding: l.byStanding,
         reopenReason: l.reopenReason,
         deferredFromLineId: l.deferredFromLineId,
+        extendsLineId: l.extendsLineId,
         decision: d
           ? { by: d.byStanding ? "Standing authorisation" : (d.by ?? "Unknown"), at: d.at, decision: d.decision, amountCents: d.amountCents, note: d.note, lineVersion: d.lineVersion }
           : null,

@@ -2,15 +2,15 @@ import { accountRecipients, shopRecipients, userEmail } from "@/db/queries/recip
 import { workOrderForMail } from "@/db/queries/work-order-detail";
 import { workOrderLabel } from "@/lib/domain";
 import { appUrl, sendMail } from "@/lib/mail/send";
-import { decisionMadeMail, estimateReadyMail, lineReopenedMail, timeBoxReachedMail } from "@/lib/mail/templates/estimate";
+import { decisionMadeMail, estimateReadyMail, lineReopenedMail } from "@/lib/mail/templates/estimate";
 
-type WoRef = Awaited<ReturnType<typeof workOrderForMail>>;
+export type WoRef = Awaited<ReturnType<typeof workOrderForMail>>;
 
 const fleetLink = (woId: string) => appUrl(`/fleet/work-orders/${woId}`);
 const shopLink = (woId: string) => appUrl(`/work-orders/${woId}`);
 
 /** The writer who opened the work order, or every writer when it was someone else. */
-async function writersFor(wo: WoRef): Promise<string[]> {
+export async function writersFor(wo: WoRef): Promise<string[]> {
   const own = await userEmail(wo.createdBy);
   const writers = await shopRecipients(["writer"]);
   return own.length && writers.includes(own[0]!) ? own : writers;
@@ -36,9 +36,3 @@ export async function notifyLineReopened(workOrderId: string, line: { descriptio
   return sendMail(to, mail, "line_reopened");
 }
 
-export async function notifyTimeBoxReached(workOrderId: string, description: string, approvedHours: string) {
-  const wo = await workOrderForMail(workOrderId);
-  const base = { woLabel: workOrderLabel(wo.number), unitNumber: wo.unitNumber, description, approvedHours };
-  await sendMail(await writersFor(wo), timeBoxReachedMail({ ...base, url: shopLink(wo.id), forFleet: false }), "time_box_reached");
-  await sendMail(await accountRecipients(wo.accountId, ["approver"]), timeBoxReachedMail({ ...base, url: fleetLink(wo.id), forFleet: true }), "time_box_reached");
-}
