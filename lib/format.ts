@@ -64,3 +64,9 @@ export function asSentence(text: string): string {
   const capital = trimmed.charAt(0).toUpperCase() + trimmed.slice(1);
   return /[.!?…]$/.test(capital) ? capital : `${capital}.`;
 }
+
+/** The technician on a visit as it is: assigned, or (with nobody assigned) whoever clocked time on it. */
+export function technicianLabel(assigned: string | null, clocked: string | null | undefined): string {
+  if (assigned) return assigned;
+  return clocked ? `${clocked} (clocked on it, not assigned)` : "not assigned";
+}

@@ -104,7 +104,7 @@ export function ApprovalView({
           {READING_CAUTION}
         </p>
       ) : null}
-      <LimitsPanel limits={view.limits} />
+      <LimitsPanel limits={view.limits} closed={view.status === "released"} />
       {banner ? (
         <p
           role={banner.kind === "refused" ? "alert" : "status"}

@@ -1,6 +1,6 @@
-import { and, desc, eq, inArray, isNull } from "drizzle-orm";
+import { and, desc, eq, inArray, isNull, sql, type SQL } from "drizzle-orm";
 import { getDb, writeTx, type Tx } from "@/db/client";
-import { estimateLines, timeEntries } from "@/db/schema";
+import { estimateLines, timeEntries, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { boxRootId, formatClock, formatTenths, isApprovedState, type DiagnosisClock } from "@/lib/estimate";
 import { conflict } from "@/lib/http/problem";
@@ -133,4 +133,9 @@ export async function timeSummary(workOrderId: string) {
     byLine.set(key, s);
   }
   return byLine;
+}
+
+/** Who clocked on a work order most recently (running clocks first): a visit with time on it has a technician. */
+export function clockedTechNameSql(workOrderId: SQL | typeof workOrders.id = workOrders.id): SQL<string | null> {
+  return sql<string | null>`(select u.name from time_entries t join users u on u.id = t.tech_id where t.work_order_id = ${workOrderId} order by t.ended_at is null desc, t.started_at desc limit 1)`;
 }
