@@ -33,7 +33,7 @@ export function ApprovalLine({
   const [showNote, setShowNote] = useState(false);
   const pending = line.state === "proposed";
   return (
-    <li className={`rounded-card border-2 p-3 ${pending ? "border-ink bg-paper-card" : "border-rule bg-paper"}`} data-testid="approval-line" data-line-id={line.id} data-state={line.state}>
+    <li id={`line-${line.id}`} className={`scroll-mt-4 rounded-card border-2 p-3 ${pending ? "border-ink bg-paper-card" : "border-rule bg-paper"}`} data-testid="approval-line" data-line-id={line.id} data-state={line.state}>
       <div className="flex items-start justify-between gap-3">
         <div className="min-w-0">
           <p className="text-xs font-semibold text-ink-faint uppercase">{LINE_KIND_LABELS[line.kind]}</p>

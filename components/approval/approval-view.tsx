@@ -10,13 +10,12 @@ import { PhotoStrip } from "@/components/findings/photo-strip";
 import { TotalsBar } from "@/components/estimate/totals-bar";
 import { Card, CardTitle } from "@/components/ui/card";
 import { Timeline } from "@/components/work-order/timeline";
-import { Button } from "@/components/ui/button";
 import type { WorkOrderView } from "@/db/queries/work-order-view";
 import type { Decision } from "@/lib/domain";
 import { asSentence } from "@/lib/format";
-import { formatCents } from "@/lib/money";
 import { READING_CAUTION } from "@/lib/specs";
 import { ApprovalLine } from "./approval-line";
+import { ApproveWhatFits, type Colleague } from "./approve-what-fits";
 import { LimitsPanel } from "./limits-panel";
 
 async function post(url: string, body: unknown) {
@@ -32,10 +31,12 @@ export function ApprovalView({
   initial,
   canDecide,
   taxExempt,
+  colleagues = [],
 }: {
   initial: WorkOrderView;
   canDecide: boolean;
   taxExempt: boolean;
+  colleagues?: Colleague[];
 }) {
   const key = `/api/v1/work-orders/${initial.id}`;
   const { data, mutate } = useSWR<WorkOrderView>(key, fetchJson, { fallbackData: initial, refreshInterval: LIVE_REFRESH_MS });
@@ -82,12 +83,10 @@ export function ApprovalView({
   const decideOne = (lineId: string, version: number, decision: Decision, note: string) =>
     run(() => post(`/api/v1/lines/${lineId}/decision`, { decision, expectedVersion: version, ...(note ? { note } : {}) }), lineId, "Decision saved. The shop has been told.");
 
-  const approveAll = () =>
-    run(
-      () => post(`/api/v1/work-orders/${view.id}/decisions`, { decisions: pending.map((l) => ({ lineId: l.id, decision: "approve", expectedVersion: l.version })) }),
-      null,
-      `Approved ${pending.length} line${pending.length === 1 ? "" : "s"}.`,
-    );
+  const approveSome = (lines: typeof pending, success: string) =>
+    run(() => post(`/api/v1/work-orders/${view.id}/decisions`, { decisions: lines.map((l) => ({ lineId: l.id, decision: "approve", expectedVersion: l.version })) }), null, success);
+  // Waiting lines in the order the page shows them (by concern, then the rest).
+  const shownWaiting = groups.flatMap((g) => pending.filter((l) => (l.concernId ?? "") === g.id));
 
   return (
     <div className="flex flex-col gap-4">
@@ -114,15 +113,18 @@ export function ApprovalView({
           {banner.text}
         </p>
       ) : null}
-      {canDecide && pending.length > 1 ? (
-        <div className="rounded-card border border-rule bg-paper p-3">
-          <p className="text-sm">
-            {pending.length} lines wait for your decision, {formatCents(view.totals.pendingCents)} in all.
-          </p>
-          <Button type="button" className="mt-2 w-full sm:w-auto" disabled={busy} onClick={approveAll} data-testid="approve-all">
-            Approve all {pending.length}
-          </Button>
-        </div>
+      {canDecide && view.status !== "released" && pending.length > 1 ? (
+        <ApproveWhatFits
+          view={view}
+          waiting={shownWaiting}
+          colleagues={colleagues}
+          busy={busy}
+          onApprove={(lines, success) => void approveSome(lines, success)}
+          onPassed={(text, ok) => {
+            setBanner({ kind: ok ? "ok" : "refused", text });
+            void mutate();
+          }}
+        />
       ) : null}
       {!canDecide ? <p className="text-sm text-ink-soft">Only your account&apos;s approvers can decide on these lines.</p> : null}
       {groups.map((g) => {

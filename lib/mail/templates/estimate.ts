@@ -121,3 +121,25 @@ export function timeBoxExtensionMail(p: {
     action: { label: "Decide on the extension", url: p.url },
   });
 }
+
+/** An approver passes lines past their own signing limit to a colleague who can sign for them. */
+export function passedOnMail(p: {
+  woLabel: string;
+  unitNumber: string;
+  from: string;
+  note: string;
+  lines: { description: string; amountCents: number; url: string }[];
+  url: string;
+}): RenderedMail {
+  const total = p.lines.reduce((s, l) => s + l.amountCents, 0);
+  return renderMail({
+    subject: `${p.woLabel} · ${p.unitNumber}: ${p.from} passed ${p.lines.length} line${p.lines.length === 1 ? "" : "s"} to you to decide`,
+    heading: `${p.from} asks you to decide on ${p.unitNumber}`,
+    paragraphs: [
+      `These ${p.lines.length === 1 ? "line is" : "lines are"} past ${p.from}'s signing limit (${formatCents(total)} in all):`,
+      ...p.lines.map((l) => `• ${l.description}: ${formatCents(l.amountCents)} — ${l.url}`),
+      ...(p.note ? [`${p.from} says: ${p.note}`] : []),
+    ],
+    action: { label: "Decide on these lines", url: p.url },
+  });
+}
