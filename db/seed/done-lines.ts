@@ -2,7 +2,7 @@ import { eq } from "drizzle-orm";
 import { decisions, estimateLines, workOrders } from "@/db/schema";
 import type { LineKind } from "@/lib/domain";
 import { lineAmountCents } from "@/lib/money";
-import { type SeedContext, id, milestones } from "./context";
+import { type SeedContext, id, laterInShopHours, milestones } from "./context";
 
 interface LineSeed {
   kind: LineKind;
@@ -79,7 +79,7 @@ export async function seedDoneLines(ctx: SeedContext, woKey: string, account: st
   // Written before the estimate went out, approved two hours after it went out.
   const sent = milestones(ctx, woKey).waiting_approval;
   if (!sent) throw new Error(`seed: ${woKey} was never sent for approval`);
-  const approvedAt = new Date(Date.parse(sent) + 2 * 3_600_000).toISOString();
+  const approvedAt = new Date(laterInShopHours(Date.parse(sent) + 2 * 3_600_000)).toISOString();
   const doneAt = wo.releasedAt ?? approvedAt;
   const rows = template.map((l, i) => {
     const quantityMilli = i === 0 ? l.quantityMilli + extraLabourMilli : l.quantityMilli;

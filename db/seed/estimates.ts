@@ -3,7 +3,7 @@ import { budgetUsedCents, currentFiscalYear } from "@/db/queries/estimate-contex
 import { accounts, decisions, estimateLines, timeEntries, workOrders } from "@/db/schema";
 import type { Decision, LineKind, LineState } from "@/lib/domain";
 import { lineAmountCents } from "@/lib/money";
-import { type SeedContext, id, milestones, nextMilestone } from "./context";
+import { type SeedContext, id, laterInShopHours, milestones, nextMilestone } from "./context";
 
 type By = "standing" | "supervisor" | "trustee" | "transport" | "office";
 const APPROVER_EMAIL: Record<Exclude<By, "standing">, string> = {
@@ -137,7 +137,9 @@ function lineTimes(ctx: SeedContext, woKey: string, l: LineSeed): { createdAt: s
   if (sent === null) throw new Error(`seed: ${woKey} has decided lines but was never sent`);
   const next = nextMilestone(ctx, woKey, m.waiting_approval!);
   const until = next ? Date.parse(next) : ctx.now.getTime() - 20 * MIN;
-  return { createdAt: at(written), decidedAt: at(sent + (until - sent) * 0.3) };
+  // In the customer's working day, and never before the estimate reached them.
+  const decided = laterInShopHours(sent + (until - sent) * 0.3);
+  return { createdAt: at(written), decidedAt: at(Math.min(decided, until - MIN)) };
 }
 
 async function insertLines(ctx: SeedContext, woKey: string, lines: LineSeed[]): Promise<void> {

@@ -2,7 +2,7 @@ import { findingReadings, findings, photos, workOrders } from "@/db/schema";
 import { eq } from "drizzle-orm";
 import type { Severity } from "@/lib/domain";
 import { checkReading, type ReadingInput } from "@/lib/specs";
-import { type SeedContext, id, milestones, nextMilestone } from "./context";
+import { type SeedContext, id, inShopHours, milestones, nextMilestone } from "./context";
 import type { DemoDrawing } from "./demo-drawings";
 import type { DemoPhotos } from "./demo-photos";
 
@@ -91,9 +91,11 @@ function findingTime(ctx: SeedContext, f: FindingSeed): string {
   if (!diagnosing) throw new Error(`seed: ${f.wo} has findings but was never diagnosed`);
   const start = Date.parse(diagnosing);
   const end = Date.parse(nextMilestone(ctx, f.wo, diagnosing) ?? new Date(ctx.now.getTime() - 30 * 60_000).toISOString());
+  // A finding every 40 minutes or so from the start of diagnosis, in the shop's working day.
   const same = FINDINGS.filter((x) => x.wo === f.wo);
   const k = same.indexOf(f) + 1;
-  return new Date(start + ((end - start) * k) / (same.length + 1)).toISOString();
+  const step = Math.min(40 * 60_000, (end - start) / (same.length + 1));
+  return new Date(inShopHours(start + step * k)).toISOString();
 }
 
 /** Findings on the open demo visits, with drawn photos and checked readings. */

@@ -1,7 +1,7 @@
 import { eq } from "drizzle-orm";
 import { concerns, counters, statusEvents, workOrders } from "@/db/schema";
 import { WORK_ORDER_STATUSES, type WorkOrderStatus } from "@/lib/domain";
-import { type SeedContext, daysAgo, id } from "./context";
+import { type SeedContext, daysAgo, id, inShopHours } from "./context";
 import { UNIT_SEEDS } from "./units";
 import { isColdSeason } from "./weather";
 
@@ -126,7 +126,7 @@ function timeline(seed: Pick<WorkOrderSeed, "status" | "openedDaysAgo" | "notes"
   const second = Math.min(opened + HOUR, end);
   // Past visits end at their release; an open visit has been in its last status a while, not a minute.
   const spans = released ? Math.max(steps.length - 2, 1) : Math.max(steps.length - 1, 1);
-  const times = steps.map((_, i) => (i === 0 ? opened : i === 1 ? second : second + ((end - second) * (i - 1)) / spans));
+  const times = steps.map((_, i) => (i === 0 ? opened : i === 1 ? second : Math.min(inShopHours(second + ((end - second) * (i - 1)) / spans), end)));
   return steps.map((status, i) => ({
     status,
     note: seed.notes?.[status] ?? (i === 0 ? "Unit checked in." : ""),

@@ -52,6 +52,12 @@ describe.each(["2026-09-15T15:00:00Z", "2026-12-02T18:00:00Z", "2027-07-01T14:00
       const col = table === "findings" ? "created_at" : table === "occurrences" ? "occurred_at" : "at";
       expect((await client.execute({ sql: `SELECT count(*) AS n FROM ${table} WHERE ${col} > ?`, args: [now] })).rows[0], table).toMatchObject({ n: 0 });
     }
+    // A finding or a decision at 3 a.m. reads wrong: the shop's working day (its zone, APP_TIME_ZONE's default).
+    const hour = (iso: unknown) => Number(new Intl.DateTimeFormat("en-US", { hour: "numeric", hourCycle: "h23", timeZone: "America/Chicago" }).format(new Date(String(iso))));
+    for (const r of (await client.execute("SELECT created_at AS at FROM findings UNION ALL SELECT at FROM decisions WHERE by_standing = 0")).rows) {
+      expect(hour(r.at), String(r.at)).toBeGreaterThanOrEqual(7);
+      expect(hour(r.at), String(r.at)).toBeLessThan(17);
+    }
     client.close();
   });
 
