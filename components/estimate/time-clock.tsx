@@ -83,7 +83,9 @@ export function TimeClock({
   canAskForMore: boolean;
 }) {
   const router = useRouter();
-  const now = useNow(1000, renderedAt);
+  const ticked = useNow(1000, renderedAt);
+  // Never before a clock the server just started (the next tick may be up to a second away).
+  const now = Math.max(ticked, ...lines.flatMap((l) => l.spans.map((s) => s.startMs)));
   const [error, setError] = useState<string | null>(null);
   const [pending, start] = useTransition();
   const run = (fn: () => Promise<{ ok: boolean; error?: string }>) =>

@@ -65,7 +65,7 @@ export function planApproveWhatFits(input: {
 export function describeLeftLines(plan: FitPlan, fiscalYearLabel: string): string[] {
   return plan.left.map(({ line, reason }) =>
     reason === "signing_limit"
-      ? `“${line.description}” (${formatCents(line.amountCents)}) would pass your signing limit: ${formatCents(plan.signingLeftCents)} of it is left on this work order.`
+      ? `“${line.description}” (${formatCents(line.amountCents)}) is more than the ${formatCents(plan.signingLeftCents)} your signing limit leaves on this work order${plan.fits.length ? " after the lines that fit" : ""}.`
       : `“${line.description}” (${formatCents(line.amountCents)}) would pass the repair budget: ${formatCents(plan.budgetLeftCents ?? 0)} is left in ${fiscalYearLabel}, so no approver can approve it until the budget allows.`,
   );
 }

@@ -20,7 +20,7 @@ describe("approve what fits", () => {
     expect(plan.fits.map((l) => l.id)).toEqual(["L0", "L1", "L2", "L4", "L5", "L6"]);
     expect(plan.fitsCents).toBe(2_094_45);
     expect(plan.left).toEqual([{ line: waiting[3], reason: "signing_limit" }]);
-    expect(describeLeftLines(plan, fy.label)).toEqual(["“Line 4” ($5,640.00) would pass your signing limit: $2,595.55 of it is left on this work order."]);
+    expect(describeLeftLines(plan, fy.label)).toEqual(["“Line 4” ($5,640.00) is more than the $2,595.55 your signing limit leaves on this work order after the lines that fit."]);
   });
 
   it("a line past the repair budget is left for the budget, in words", () => {
