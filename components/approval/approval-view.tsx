@@ -113,7 +113,7 @@ export function ApprovalView({
           {banner.text}
         </p>
       ) : null}
-      {canDecide && view.status !== "released" && pending.length > 1 ? (
+      {canDecide && view.status !== "released" && pending.length > 0 ? (
         <ApproveWhatFits
           view={view}
           waiting={shownWaiting}

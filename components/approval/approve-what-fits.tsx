@@ -46,6 +46,8 @@ export function ApproveWhatFits({
   const [to, setTo] = useState(colleagues[0]?.id ?? "");
   const [passing, startPass] = useTransition();
   const all = fits.length === waiting.length;
+  // One line that fits needs no panel: its own Approve button does it.
+  if (waiting.length === 1 && all) return null;
   const pendingCents = waiting.reduce((s, l) => s + l.amountCents, 0);
   return (
     <div className="flex flex-col gap-2 rounded-card border border-rule bg-paper p-3" data-testid="approve-what-fits">

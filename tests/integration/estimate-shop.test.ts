@@ -1,26 +1,17 @@
 import { eq } from "drizzle-orm";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { updateAccountSettings } from "@/db/queries/accounts";
 import { decide } from "@/db/queries/decisions";
 import { addLine, bringBackDeferred, editLine } from "@/db/queries/estimate-lines";
 import { sendEstimate, startUnderStanding } from "@/db/queries/estimate-send";
 import { accounts, auditLog, estimateLines, workOrders } from "@/db/schema";
 import { getDb } from "@/db/client";
-import { resetEnvCache } from "@/lib/env";
 import { notifyDecisionMade, notifyEstimateReady, notifyLineReopened } from "@/lib/notifications/estimate";
-import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { sessionUser } from "./helpers/app";
+import { mailCatcherForFile } from "./helpers/fake-smtp";
 import { lineByDescription, linesOf, workOrderByNumber } from "./helpers/work-orders";
 
-let smtp: FakeSmtp;
-beforeAll(async () => {
-  smtp = await startFakeSmtp();
-  process.env.SMTP_URL = `smtp://127.0.0.1:${smtp.smtpPort}`;
-  resetEnvCache();
-});
-afterAll(async () => {
-  await smtp.close();
-});
+const catcher = mailCatcherForFile();
 
 const writer = () => sessionUser("writer@quarry-road.example");
 const supervisor = () => sessionUser("supervisor@brennan-twp.example");
@@ -52,8 +43,8 @@ describe("the writer's estimate: revise, start under standing authorisation, bri
 
     await notifyLineReopened(wo.id, { description: again.description, approvedCents: 18_640, revisedCents: 20_505, reason: back.reason ?? "" });
     // One message per approver, so nobody sees the others' addresses.
-    const mail = await smtp.waitFor((m) => m.subject.includes("needs your approval again") && m.to.includes("supervisor@brennan-twp.example"));
-    await smtp.waitFor((m) => m.subject.includes("needs your approval again") && m.to.includes("trustee@brennan-twp.example"));
+    const mail = await catcher().waitFor((m) => m.subject.includes("needs your approval again") && m.to.includes("supervisor@brennan-twp.example"));
+    await catcher().waitFor((m) => m.subject.includes("needs your approval again") && m.to.includes("trustee@brennan-twp.example"));
     expect(mail.to).toEqual(["supervisor@brennan-twp.example"]);
     expect(mail.text).toContain(`/fleet/work-orders/${wo.id}`);
     expect(mail.text).toContain("$186.40");
@@ -79,7 +70,7 @@ describe("the writer's estimate: revise, start under standing authorisation, bri
     expect(after!.status).toBe("waiting_approval");
     expect((await linesOf(wo.id)).filter((l) => l.state === "proposed")).toHaveLength(1);
     await notifyEstimateReady(wo.id, sentCount, 7_750, false);
-    const mail = await smtp.waitFor((m) => m.subject.includes("Bus 9") && m.subject.includes("estimate ready"));
+    const mail = await catcher().waitFor((m) => m.subject.includes("Bus 9") && m.subject.includes("estimate ready"));
     expect(mail.to).toEqual(["transport@alder-falls-schools.example"]);
     expect(mail.text).toContain(`http://localhost:3000/fleet/work-orders/${wo.id}`);
   });
@@ -87,7 +78,7 @@ describe("the writer's estimate: revise, start under standing authorisation, bri
   it("tells the writer when the approver decides", async () => {
     const wo = await workOrderByNumber(1042);
     await notifyDecisionMade(wo.id, "Gary Holm", "approve 1 line ($186.40)", 9);
-    const mail = await smtp.waitFor((m) => m.subject.includes("Gary Holm decided"));
+    const mail = await catcher().waitFor((m) => m.subject.includes("Gary Holm decided"));
     expect(mail.to).toEqual(["writer@quarry-road.example"]);
     expect(mail.text).toContain(`/work-orders/${wo.id}`);
   });

@@ -1,24 +1,15 @@
 // "Pass the rest to an approver who can" (product.md, "Authorised limits": above one approver's
 // signing limit a second approver with a higher limit is needed). Nothing is decided by passing
 // lines on; the limits on the server stay exactly as strict.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { decide } from "@/db/queries/decisions";
 import { higherLimitApprovers, passLinesOn } from "@/db/queries/pass-on";
-import { resetEnvCache } from "@/lib/env";
 import { sendPassedOn } from "@/lib/notifications/pass-on";
-import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { sessionUser } from "./helpers/app";
+import { mailCatcherForFile } from "./helpers/fake-smtp";
 import { lineByDescription, linesOf, workOrderByNumber } from "./helpers/work-orders";
 
-let smtp: FakeSmtp;
-beforeAll(async () => {
-  smtp = await startFakeSmtp();
-  process.env.SMTP_URL = `smtp://127.0.0.1:${smtp.smtpPort}`;
-  resetEnvCache();
-});
-afterAll(async () => {
-  await smtp.close();
-});
+const catcher = mailCatcherForFile();
 
 describe("passing lines past one's signing limit to a colleague", () => {
   it("offers only active approvers of the same account with a higher limit", async () => {
@@ -41,7 +32,7 @@ describe("passing lines past one's signing limit to a colleague", () => {
     expect(passed.lines).toEqual([{ id: moldboard.id, description: moldboard.description, amountCents: 564_000 }]);
     expect((await lineByDescription(wo.id, "Moldboard")).state).toBe("proposed");
     await sendPassedOn(passed);
-    const mail = await smtp.waitFor((m) => m.to.includes("trustee@brennan-twp.example") && m.subject.includes("passed 1 line to you"));
+    const mail = await catcher().waitFor((m) => m.to.includes("trustee@brennan-twp.example") && m.subject.includes("passed 1 line to you"));
     expect(mail.text).toContain(`/fleet/work-orders/${wo.id}#line-${moldboard.id}`);
     expect(mail.text).toContain("$5,640.00");
     // The colleague can decide it.

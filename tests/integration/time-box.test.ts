@@ -2,29 +2,20 @@
 // 80 %, stopped at 100 % until the customer extends it). Recorded time is a fact: it is never cut
 // back. Demo: W-1043 (T-9), 2.0 h of diagnosis approved by the road supervisor, 1 h 42 min clocked.
 import { and, eq, isNull } from "drizzle-orm";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { getDb, writeTx } from "@/db/client";
 import { decide } from "@/db/queries/decisions";
 import { askForMoreDiagnosisTime } from "@/db/queries/time-box-extension";
 import { clockOfGroup, loadBoxGroup, settleTimeBoxes } from "@/db/queries/time-box-stops";
 import { clockIn, clockOut } from "@/db/queries/time-clock";
 import { estimateLines, timeEntries } from "@/db/schema";
-import { resetEnvCache } from "@/lib/env";
 import { sendTimeBoxNotice } from "@/lib/notifications/time-box";
 import { checkTimeBoxes } from "@/lib/notifications/time-box-watch";
-import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { sessionUser } from "./helpers/app";
+import { mailCatcherForFile } from "./helpers/fake-smtp";
 import { lineByDescription, workOrderByNumber } from "./helpers/work-orders";
 
-let smtp: FakeSmtp;
-beforeAll(async () => {
-  smtp = await startFakeSmtp();
-  process.env.SMTP_URL = `smtp://127.0.0.1:${smtp.smtpPort}`;
-  resetEnvCache();
-});
-afterAll(async () => {
-  await smtp.close();
-});
+const catcher = mailCatcherForFile();
 
 const MIN = 60_000;
 const tech = () => sessionUser("tech@quarry-road.example");
@@ -74,14 +65,14 @@ describe("a running diagnosis clock and its time box", () => {
     const { wo, line } = await diagnosis();
     const base = { rootLineId: line.id, workOrderId: wo.id, description: line.description, approvedMilli: 2000, techIds: [(await tech()).id] };
     await sendTimeBoxNotice({ ...base, kind: "warn", usedMs: 96 * MIN });
-    const warnTech = await smtp.waitFor((m) => m.subject.includes("80 % of the diagnosis time used") && m.to.includes("tech@quarry-road.example"));
-    await smtp.waitFor((m) => m.subject.includes("80 % of the diagnosis time used") && m.to.includes("writer@quarry-road.example"));
+    const warnTech = await catcher().waitFor((m) => m.subject.includes("80 % of the diagnosis time used") && m.to.includes("tech@quarry-road.example"));
+    await catcher().waitFor((m) => m.subject.includes("80 % of the diagnosis time used") && m.to.includes("writer@quarry-road.example"));
     expect(warnTech.text).toContain("1 h 36 min of the 2.0 h approved");
     expect(warnTech.text).toContain(`/work-orders/${wo.id}`);
     await sendTimeBoxNotice({ ...base, kind: "reached", usedMs: 120 * MIN });
-    await smtp.waitFor((m) => m.subject.includes("the clock stopped") && m.to.includes("tech@quarry-road.example"));
-    await smtp.waitFor((m) => m.subject.includes("the clock stopped") && m.to.includes("writer@quarry-road.example"));
-    const fleet = await smtp.waitFor((m) => m.subject.includes("the clock stopped") && m.to.includes("supervisor@brennan-twp.example"));
+    await catcher().waitFor((m) => m.subject.includes("the clock stopped") && m.to.includes("tech@quarry-road.example"));
+    await catcher().waitFor((m) => m.subject.includes("the clock stopped") && m.to.includes("writer@quarry-road.example"));
+    const fleet = await catcher().waitFor((m) => m.subject.includes("the clock stopped") && m.to.includes("supervisor@brennan-twp.example"));
     expect(fleet.text).toContain(`/fleet/work-orders/${wo.id}`);
   });
 
