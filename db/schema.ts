@@ -71,10 +71,12 @@ export const accounts = sqliteTable("accounts", {
   standingAuthorisationCents: integer("standing_authorisation_cents").notNull().default(0),
   repairBudgetCents: integer("repair_budget_cents"),
   fiscalYearStartMonth: integer("fiscal_year_start_month").notNull().default(1),
-  // Default allowance: 10 % capped at $50 (reference-values.md).
+  // Default allowance for a new account: the Florida shape, the greater of $10 or 10 %, never
+  // more than $50 (reference-values.md; lib/estimate DEFAULT_OVERRUN_POLICY). Existing accounts
+  // keep what they have: only the column default changed.
   overrunPercentMilli: integer("overrun_percent_milli").notNull().default(10_000),
   overrunCapCents: integer("overrun_cap_cents").default(5_000),
-  overrunFloorCents: integer("overrun_floor_cents").notNull().default(0),
+  overrunFloorCents: integer("overrun_floor_cents").notNull().default(1_000),
   shopSuppliesExempt: bool("shop_supplies_exempt").notNull().default(false),
   notes: text("notes").notNull().default(""),
   createdAt: createdAt(),
@@ -321,6 +323,12 @@ export const estimateLines = sqliteTable(
     // Deferred work brought back on a later visit points at the line it came from.
     deferredFromLineId: text("deferred_from_line_id"),
     broughtBackAt: text("brought_back_at"),
+    // A diagnosis extension (more hours asked of the customer) points at the line whose time box it widens.
+    extendsLineId: text("extends_line_id"),
+    // The approved hours the last 80 % warning and 100 % notice of this line's time box went out for,
+    // so each goes once per box size (an extension starts again).
+    boxWarnedMilli: integer("box_warned_milli"),
+    boxReachedMilli: integer("box_reached_milli"),
     createdBy: text("created_by").references(() => users.id),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
@@ -359,10 +367,19 @@ export const timeEntries = sqliteTable(
     techId: text("tech_id").notNull().references(() => users.id),
     startedAt: text("started_at").notNull(),
     endedAt: text("ended_at"),
+    // On a diagnosis line: the instant this running clock stops by itself, when the time box fills.
+    // Every read counts a running entry up to it; the watcher and every clock write then close it.
+    stopAt: text("stop_at"),
+    stoppedBy: text("stopped_by", { enum: ["tech", "time_box"] }),
     note: text("note").notNull().default(""),
     createdAt: createdAt(),
   },
-  (t) => [index("time_entries_line_idx").on(t.lineId), index("time_entries_tech_idx").on(t.techId, t.endedAt)],
+  (t) => [
+    index("time_entries_line_idx").on(t.lineId),
+    index("time_entries_tech_idx").on(t.techId, t.endedAt),
+    // The watcher looks for running clocks by when they stop.
+    index("time_entries_running_stop_idx").on(t.endedAt, t.stopAt),
+  ],
 );
 
 export const invoices = sqliteTable(

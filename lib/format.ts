@@ -56,3 +56,17 @@ export function calendarDate(instant: Date, timeZone = DEFAULT_TIME_ZONE): strin
 export function formatQuantity(milli: number): string {
   return (milli / 1000).toLocaleString("en-US", { maximumFractionDigits: 3 });
 }
+
+/** A server's detail ("approving $5,200.00 … is $5,000.00") as a sentence: capital first, full stop last. */
+export function asSentence(text: string): string {
+  const trimmed = text.trim();
+  if (!trimmed) return trimmed;
+  const capital = trimmed.charAt(0).toUpperCase() + trimmed.slice(1);
+  return /[.!?…]$/.test(capital) ? capital : `${capital}.`;
+}
+
+/** The technician on a visit as it is: assigned, or (with nobody assigned) whoever clocked time on it. */
+export function technicianLabel(assigned: string | null, clocked: string | null | undefined): string {
+  if (assigned) return assigned;
+  return clocked ? `${clocked} (clocked on it, not assigned)` : "not assigned";
+}

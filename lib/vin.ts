@@ -30,9 +30,17 @@ export type VinValidation =
   | { ok: true; vin: string }
   | { ok: false; reason: VinProblem; message: string; expected?: string };
 
-/** Trim, uppercase, and drop spaces and dashes (as VINs are often written or scanned). */
+/** Spaces and dashes (hyphen, en and em dashes), as VINs are often written or scanned. */
+const SEPARATORS = /[\s\-\u2010-\u2015]+/g;
+
+/**
+ * Drop separators, then upper-case a–z only. Never String#toUpperCase on the
+ * whole entry: "ß" becomes "SS", "ﬀ" "FF", "ſ" "S", so a 16-character entry
+ * could pass as a 17-character VIN. Any other character is left as typed, for
+ * validateVin to refuse.
+ */
 export function normalizeVin(input: string): string {
-  return input.trim().toUpperCase().replace(/[\s\-\u2010-\u2015]+/g, "");
+  return input.replace(SEPARATORS, "").replace(/[a-z]/g, (c) => c.toUpperCase());
 }
 
 /** The value of one VIN character, or null for a character no VIN may contain. */
@@ -48,7 +56,7 @@ export function vinCharValue(char: string): number | null {
  * so whatever stands there (even a placeholder) does not change the sum.
  */
 export function vinWeightedSum(vin17: string): number | null {
-  const vin = vin17.toUpperCase();
+  const vin = vin17.replace(/[a-z]/g, (c) => c.toUpperCase());
   if (vin.length !== VIN_LENGTH) return null;
   let sum = 0;
   for (let i = 0; i < VIN_LENGTH; i += 1) {
@@ -81,13 +89,24 @@ function characterProblem(vin: string): string | null {
       return `VINs never contain I, O or Q (found ${char} at position ${i + 1}); it is probably a ${lookalike}.`;
     }
     if (vinCharValue(char) === null) {
-      return `A VIN holds only letters and digits (found ${describeChar(char)} at position ${i + 1}).`;
+      return `A VIN holds only the letters A–Z and the digits 0–9 (found ${describeChar(char)} at position ${i + 1}).`;
     }
   }
   return null;
 }
 
+/** The first character outside 0–9, A–Z and a–z, before any change of case. */
+function foreignCharacter(entry: string): string | null {
+  const chars = Array.from(entry);
+  const at = chars.findIndex((c) => !/^[0-9A-Za-z]$/.test(c));
+  if (at < 0) return null;
+  return `A VIN holds only the letters A–Z and the digits 0–9 (found ${describeChar(chars[at]!)} at position ${at + 1}).`;
+}
+
 export function validateVin(input: string): VinValidation {
+  // Refuse foreign characters first, on the entry with only its separators dropped.
+  const foreign = foreignCharacter(input.replace(SEPARATORS, ""));
+  if (foreign !== null) return { ok: false, reason: "characters", message: foreign };
   const vin = normalizeVin(input);
   if (vin.length !== VIN_LENGTH) {
     const found = vin.length === 0 ? "nothing was entered" : `this one has ${vin.length}`;

@@ -33,7 +33,7 @@ export function ApprovalLine({
   const [showNote, setShowNote] = useState(false);
   const pending = line.state === "proposed";
   return (
-    <li className={`rounded-card border-2 p-3 ${pending ? "border-ink bg-paper-card" : "border-rule bg-paper"}`} data-testid="approval-line" data-line-id={line.id} data-state={line.state}>
+    <li id={`line-${line.id}`} className={`scroll-mt-4 rounded-card border-2 p-3 ${pending ? "border-ink bg-paper-card" : "border-rule bg-paper"}`} data-testid="approval-line" data-line-id={line.id} data-state={line.state}>
       <div className="flex items-start justify-between gap-3">
         <div className="min-w-0">
           <p className="text-xs font-semibold text-ink-faint uppercase">{LINE_KIND_LABELS[line.kind]}</p>
@@ -56,7 +56,11 @@ export function ApprovalLine({
         </div>
       </div>
       {children}
-      {line.reopenReason && pending ? <p className="mt-2 text-sm font-semibold text-rust-deep">Back for your approval: {line.reopenReason}</p> : null}
+      {line.reopenReason && pending ? (
+        <p className="mt-2 text-sm font-semibold text-rust-deep">
+          {line.extendsLineId ? "Why the shop asks for more time" : "Back for your approval"}: {line.reopenReason}
+        </p>
+      ) : null}
       <DecisionLine decision={line.decision} />
       {refusal ? (
         <p role="alert" className="mt-2 rounded-card border-2 border-rust bg-rust-wash px-3 py-2 text-sm font-semibold text-rust-deep" data-testid="refusal">

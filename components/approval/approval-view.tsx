@@ -10,12 +10,12 @@ import { PhotoStrip } from "@/components/findings/photo-strip";
 import { TotalsBar } from "@/components/estimate/totals-bar";
 import { Card, CardTitle } from "@/components/ui/card";
 import { Timeline } from "@/components/work-order/timeline";
-import { Button } from "@/components/ui/button";
 import type { WorkOrderView } from "@/db/queries/work-order-view";
 import type { Decision } from "@/lib/domain";
-import { formatCents } from "@/lib/money";
+import { asSentence } from "@/lib/format";
 import { READING_CAUTION } from "@/lib/specs";
 import { ApprovalLine } from "./approval-line";
+import { ApproveWhatFits, type Colleague } from "./approve-what-fits";
 import { LimitsPanel } from "./limits-panel";
 
 async function post(url: string, body: unknown) {
@@ -31,10 +31,12 @@ export function ApprovalView({
   initial,
   canDecide,
   taxExempt,
+  colleagues = [],
 }: {
   initial: WorkOrderView;
   canDecide: boolean;
   taxExempt: boolean;
+  colleagues?: Colleague[];
 }) {
   const key = `/api/v1/work-orders/${initial.id}`;
   const { data, mutate } = useSWR<WorkOrderView>(key, fetchJson, { fallbackData: initial, refreshInterval: LIVE_REFRESH_MS });
@@ -65,7 +67,7 @@ export function ApprovalView({
       });
       setBanner({ kind: "ok", text: success });
     } catch (error) {
-      let text = error instanceof ApiError ? error.message : "Cotter could not be reached. Nothing was decided; try again.";
+      let text = error instanceof ApiError ? asSentence(error.message) : "Cotter could not be reached. Nothing was decided; try again.";
       if (error instanceof ApiError && error.code === "signing_limit_exceeded") {
         text += " Another approver on your account with a higher signing limit can approve it.";
       }
@@ -81,12 +83,10 @@ export function ApprovalView({
   const decideOne = (lineId: string, version: number, decision: Decision, note: string) =>
     run(() => post(`/api/v1/lines/${lineId}/decision`, { decision, expectedVersion: version, ...(note ? { note } : {}) }), lineId, "Decision saved. The shop has been told.");
 
-  const approveAll = () =>
-    run(
-      () => post(`/api/v1/work-orders/${view.id}/decisions`, { decisions: pending.map((l) => ({ lineId: l.id, decision: "approve", expectedVersion: l.version })) }),
-      null,
-      `Approved ${pending.length} line${pending.length === 1 ? "" : "s"}.`,
-    );
+  const approveSome = (lines: typeof pending, success: string) =>
+    run(() => post(`/api/v1/work-orders/${view.id}/decisions`, { decisions: lines.map((l) => ({ lineId: l.id, decision: "approve", expectedVersion: l.version })) }), null, success);
+  // Waiting lines in the order the page shows them (by concern, then the rest).
+  const shownWaiting = groups.flatMap((g) => pending.filter((l) => (l.concernId ?? "") === g.id));
 
   return (
     <div className="flex flex-col gap-4">
@@ -103,7 +103,7 @@ export function ApprovalView({
           {READING_CAUTION}
         </p>
       ) : null}
-      <LimitsPanel limits={view.limits} />
+      <LimitsPanel limits={view.limits} closed={view.status === "released"} />
       {banner ? (
         <p
           role={banner.kind === "refused" ? "alert" : "status"}
@@ -113,15 +113,18 @@ export function ApprovalView({
           {banner.text}
         </p>
       ) : null}
-      {canDecide && pending.length > 1 ? (
-        <div className="rounded-card border border-rule bg-paper p-3">
-          <p className="text-sm">
-            {pending.length} lines wait for your decision, {formatCents(view.totals.pendingCents)} in all.
-          </p>
-          <Button type="button" className="mt-2 w-full sm:w-auto" disabled={busy} onClick={approveAll} data-testid="approve-all">
-            Approve all {pending.length}
-          </Button>
-        </div>
+      {canDecide && view.status !== "released" && pending.length > 0 ? (
+        <ApproveWhatFits
+          view={view}
+          waiting={shownWaiting}
+          colleagues={colleagues}
+          busy={busy}
+          onApprove={(lines, success) => void approveSome(lines, success)}
+          onPassed={(text, ok) => {
+            setBanner({ kind: ok ? "ok" : "refused", text });
+            void mutate();
+          }}
+        />
       ) : null}
       {!canDecide ? <p className="text-sm text-ink-soft">Only your account&apos;s approvers can decide on these lines.</p> : null}
       {groups.map((g) => {

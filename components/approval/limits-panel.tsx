@@ -19,12 +19,24 @@ function Bar({ used, total, label }: { used: number; total: number; label: strin
   );
 }
 
-/** The approver's own signing limit on this work order and the account's budget this fiscal year. */
-export function LimitsPanel({ limits }: { limits: LimitsData }) {
+/**
+ * The approver's own signing limit on this work order and the account's budget this fiscal year.
+ * A released visit takes no more decisions, so it shows no signing limit "left" to spend on it.
+ */
+export function LimitsPanel({ limits, closed = false }: { limits: LimitsData; closed?: boolean }) {
   const signingLeft = limits.signingLimitCents !== null ? limits.signingLimitCents - (limits.signingUsedCents ?? 0) : null;
   return (
     <div className="grid gap-3 sm:grid-cols-2" data-testid="limits">
-      {limits.signingLimitCents !== null ? (
+      {closed ? (
+        <div className="rounded-card border border-rule bg-paper p-3 text-sm" data-testid="visit-closed">
+          <p className="font-semibold">This visit is released: nothing on it waits for a decision.</p>
+          {limits.signingUsedCents ? (
+            <p className="mt-1 text-ink-soft">
+              You approved <Money cents={limits.signingUsedCents} /> on it.
+            </p>
+          ) : null}
+        </div>
+      ) : limits.signingLimitCents !== null ? (
         <div className="rounded-card border border-rule bg-paper p-3">
           <p className="text-sm text-ink-faint">Your signing limit on this work order</p>
           <p className="text-lg font-bold">

@@ -10,6 +10,7 @@ import { isApprovedState, priceEstimate, type AccountSettings, type EstimateLine
 import { formatCents } from "@/lib/money";
 import { LineForm, valuesToLine, type LineFormValues, type RateOption } from "./line-form";
 import { LineRow } from "./line-row";
+import { sendLabel } from "./line-values";
 import { TotalsBar } from "./totals-bar";
 
 type Editing = { lineId: string | "new"; concernId: string; values: LineFormValues } | null;
@@ -88,8 +89,8 @@ export function EstimateEditor({
     const edited: EstimateLine = {
       ...(lines.find((l) => l.id === editing.lineId) ?? { id: "new", state: "draft", version: 1, approvedByUserId: null, byStanding: false, approvedAmountCents: null }),
       kind: editing.values.kind,
-      quantityMilli: p.quantityMilli!,
-      unitPriceCents: p.unitPriceCents!,
+      quantityMilli: p.quantityMilli,
+      unitPriceCents: p.unitPriceCents,
       taxable: editing.values.taxable,
       coreChargeCents: 0,
       isDiagnosis: editing.values.isDiagnosis,
@@ -218,7 +219,7 @@ export function EstimateEditor({
       <TotalsBar totals={totals} draftCents={draftCents} ifAllPendingApprovedCents={preview?.ifAllPendingApproved.totalCents ?? view.estimateTotals.ifAllPendingApprovedCents} taxExempt={taxExempt} />
       <div className="flex flex-wrap items-center gap-3">
         <Button type="button" onClick={send} disabled={sending || closed || drafts.length === 0} data-testid="send-estimate">
-          {sending ? "Sending…" : `Send ${drafts.length} draft line${drafts.length === 1 ? "" : "s"} to ${view.accountName}`}
+          {sendLabel(drafts.length, view.accountName, sending)}
         </Button>
         <p className="text-sm text-ink-faint">
           Standing authorisation: {formatCents(Math.max(0, standingLeft))} of {formatCents(view.limits.standingAuthorisationCents)} left on this work order.

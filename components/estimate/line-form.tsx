@@ -6,34 +6,10 @@ import { inputClass } from "@/components/forms/field";
 import { Button } from "@/components/ui/button";
 import { LINE_KIND_LABELS, LINE_KINDS, type LineKind } from "@/lib/domain";
 import { addLineAction, editLineAction } from "@/lib/actions/estimate";
-import { formatCents, lineAmountCents, parseDecimal, parseDollars } from "@/lib/money";
+import { formatCents, lineAmountCents } from "@/lib/money";
+import { centsToText, rateIdFor, switchKind, valuesToLine, type LineFormValues, type RateOption } from "./line-values";
 
-export interface RateOption {
-  id: string;
-  name: string;
-  rateCents: number;
-  isDefault: boolean;
-}
-
-export interface LineFormValues {
-  kind: LineKind;
-  description: string;
-  partNumber: string;
-  quantity: string;
-  unitPrice: string;
-  taxable: boolean;
-  coreCharge: string;
-  concernId: string;
-  isDiagnosis: boolean;
-}
-
-export function valuesToLine(v: LineFormValues) {
-  const quantityMilli = parseDecimal(v.quantity, 3);
-  const unitPriceCents = parseDollars(v.unitPrice);
-  return { quantityMilli, unitPriceCents, ok: quantityMilli !== null && unitPriceCents !== null && quantityMilli > 0 };
-}
-
-const centsToText = (c: number) => (c / 100).toFixed(2);
+export { valuesToLine, type LineFormValues, type RateOption } from "./line-values";
 
 /** Adds or edits one estimate line; shows the line amount as the numbers are typed. */
 export function LineForm({
@@ -66,16 +42,12 @@ export function LineForm({
     onChange?.(next);
   };
   const priced = valuesToLine(values);
-  const amount = priced.ok ? lineAmountCents(priced.quantityMilli!, priced.unitPriceCents!) : null;
+  const amount = priced.ok ? lineAmountCents(priced.quantityMilli, priced.unitPriceCents) : null;
 
   function chooseKind(kind: LineKind) {
-    const rate = rates.find((r) => r.isDefault) ?? rates[0];
-    set({
-      kind,
-      taxable: taxDefaults[kind],
-      isDiagnosis: kind === "labor" ? values.isDiagnosis : false,
-      unitPrice: kind === "labor" && !values.unitPrice && rate ? centsToText(rate.rateCents) : values.unitPrice,
-    });
+    const next = switchKind(values, kind, rates, taxDefaults);
+    setValues(next);
+    onChange?.(next);
   }
 
   function submit(event: React.FormEvent<HTMLFormElement>) {
@@ -135,7 +107,11 @@ export function LineForm({
         <label className="flex flex-col gap-1">
           <span className="text-sm font-semibold">{values.kind === "labor" ? "Hours (tenths)" : "Quantity"}</span>
           <input className={`${inputClass} figures`} inputMode="decimal" value={values.quantity} onChange={(e) => set({ quantity: e.target.value })} aria-invalid={!!fieldErrors.quantity} />
-          {fieldErrors.quantity ? <span className="text-sm text-rust-deep">{fieldErrors.quantity}</span> : null}
+          {fieldErrors.quantity || (!priced.ok && priced.problem?.startsWith("Labour")) ? (
+            <span className="text-sm text-rust-deep" data-testid="quantity-problem">
+              {fieldErrors.quantity ?? (!priced.ok ? priced.problem : null)}
+            </span>
+          ) : null}
         </label>
         <label className="flex flex-col gap-1">
           <span className="text-sm font-semibold">{values.kind === "labor" ? "Rate ($/h)" : "Unit price ($)"}</span>
@@ -145,10 +121,17 @@ export function LineForm({
         {values.kind === "labor" ? (
           <label className="flex flex-col gap-1">
             <span className="text-sm font-semibold">Labour rate</span>
-            <select className={inputClass} onChange={(e) => set({ unitPrice: e.target.value })} value="">
-              <option value="">Pick a rate…</option>
+            <select
+              className={inputClass}
+              value={rateIdFor(values.unitPrice, rates)}
+              onChange={(e) => {
+                const rate = rates.find((r) => r.id === e.target.value);
+                if (rate) set({ unitPrice: centsToText(rate.rateCents) });
+              }}
+            >
+              <option value="">{rateIdFor(values.unitPrice, rates) ? "Pick a rate…" : "Another rate (typed)"}</option>
               {rates.map((r) => (
-                <option key={r.id} value={centsToText(r.rateCents)}>
+                <option key={r.id} value={r.id}>
                   {r.name} · {formatCents(r.rateCents)}
                 </option>
               ))}

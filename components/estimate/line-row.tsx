@@ -63,7 +63,11 @@ export function LineRow({
             )}
           </p>
         ) : null}
-        {line.reopenReason && line.state === "proposed" ? <p className="text-xs font-semibold text-rust-deep">Back for approval: {line.reopenReason}</p> : null}
+        {line.reopenReason && line.state === "proposed" ? (
+          <p className="text-xs font-semibold text-rust-deep">
+            {line.extendsLineId ? "More time asked for" : "Back for approval"}: {line.reopenReason}
+          </p>
+        ) : null}
         {line.deferredFromLineId ? <p className="text-xs text-ink-faint">Brought back from an earlier visit</p> : null}
         <DecisionLine decision={line.decision} />
       </td>
@@ -78,8 +82,9 @@ export function LineRow({
       <td className="py-2 pr-2">
         <LineStatePill state={line.state} />
       </td>
-      <td className="py-2">
-        <div className="flex flex-wrap justify-end gap-1">
+      <td className="w-56 py-2">
+        {/* The everyday actions stay on one row; the longer ones go on their own row below. */}
+        <div className="flex flex-nowrap justify-end gap-1 whitespace-nowrap" data-testid="line-actions">
           <button type="button" className={small} disabled={pending || first} onClick={() => run(() => moveLineAction({ lineId: line.id, workOrderId, direction: "up" }))} aria-label={`Move ${line.description} up`}>
             ↑
           </button>
@@ -96,6 +101,8 @@ export function LineRow({
               Remove
             </button>
           ) : null}
+        </div>
+        <div className="mt-1 flex flex-wrap justify-end gap-1 empty:hidden">
           {canStartStanding && (line.state === "draft" || line.state === "proposed") ? (
             <button type="button" className={`${small} border-ink`} disabled={pending} onClick={() => run(() => startStandingAction({ workOrderId, lineIds: [line.id] }))}>
               Start now (standing authorisation)

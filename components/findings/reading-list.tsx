@@ -1,5 +1,5 @@
 import type { Verdict } from "@/lib/domain";
-import { READING_KINDS, formatInches, type ReadingKind, type SourceKind } from "@/lib/specs";
+import { READING_KINDS, formatInches, sourceLine, type ReadingKind } from "@/lib/specs";
 import { VerdictMark } from "./verdict-mark";
 
 export interface ReadingView {
@@ -13,12 +13,6 @@ export interface ReadingView {
   source: string;
   sourceKind: string;
 }
-
-const SOURCE_KIND: Record<SourceKind, string> = {
-  published: "published",
-  common_practice: "common practice",
-  from_memory: "from memory",
-};
 
 function kindLabel(kind: string): string {
   return kind in READING_KINDS ? READING_KINDS[kind as ReadingKind].label : kind;
@@ -52,11 +46,7 @@ export function ReadingList({ readings }: { readings: readonly ReadingView[] }) 
             Limit: <span className="figures">{r.limit}</span>
           </p>
           <p className="text-xs text-ink-faint">
-            Source: {r.source}
-            {/* Some sources already name their kind; say it once. */}
-            {r.sourceKind in SOURCE_KIND && !r.source.includes(`(${SOURCE_KIND[r.sourceKind as SourceKind]})`)
-              ? ` (${SOURCE_KIND[r.sourceKind as SourceKind]})`
-              : ""}
+            Source: {sourceLine(r.source, r.sourceKind)}
           </p>
         </li>
       ))}

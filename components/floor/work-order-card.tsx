@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { SeverityMark } from "@/components/findings/severity-mark";
 import type { WorkOrderListItem } from "@/db/queries/work-order-list";
-import { formatDateTime } from "@/lib/format";
+import { formatDateTime, technicianLabel } from "@/lib/format";
 
 export function WorkOrderCard({ wo, now, href }: { wo: WorkOrderListItem; now: number; href: string }) {
   const late = wo.promisedAt !== null && Date.parse(wo.promisedAt) < now && wo.status !== "ready";
@@ -24,7 +24,7 @@ export function WorkOrderCard({ wo, now, href }: { wo: WorkOrderListItem; now: n
       <p className="mt-1 line-clamp-2 font-semibold">{wo.title || wo.unitDescription}</p>
       <dl className="mt-2 grid grid-cols-[auto_1fr] gap-x-2 text-sm">
         <dt className="text-ink-faint">Tech</dt>
-        <dd>{wo.technicianName ?? "Not assigned"}</dd>
+        <dd>{technicianLabel(wo.technicianName, wo.clockedTechName)}</dd>
         <dt className="text-ink-faint">Promised</dt>
         <dd className={late ? "font-bold text-rust-deep" : ""}>
           {wo.promisedAt ? formatDateTime(wo.promisedAt) : "—"}

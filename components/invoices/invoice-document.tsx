@@ -2,7 +2,7 @@ import { Money } from "@/components/ui/money";
 import type { InvoiceDetail } from "@/db/queries/invoices";
 import { LINE_KIND_LABELS } from "@/lib/domain";
 import { formatDate } from "@/lib/format";
-import { formatQuantityOf, PAYMENT_METHOD_LABELS } from "@/lib/invoices/format";
+import { formatPriceOf, formatQuantityOf, formatUnitPriceOf, PAYMENT_METHOD_LABELS } from "@/lib/invoices/format";
 import { PaymentStatePill } from "./payment-state-pill";
 
 /** The invoice as a document: what the PDF shows, in our own look, and what prints. */
@@ -85,14 +85,12 @@ export function InvoiceDocument({ invoice: inv, timeZone }: { invoice: InvoiceDe
                   </span>
                 ) : null}
                 <span className="block text-xs text-ink-faint sm:hidden">
-                  {LINE_KIND_LABELS[l.kind]} · <Money cents={l.unitPriceCents} /> each
+                  {LINE_KIND_LABELS[l.kind]} · <span className="figures">{formatPriceOf(l.quantityMilli, l.unitPriceCents, l.kind)}</span>
                 </span>
               </td>
               <td className="hidden py-1.5 pr-2 sm:table-cell">{LINE_KIND_LABELS[l.kind]}</td>
               <td className="figures py-1.5 pr-2 text-right whitespace-nowrap">{formatQuantityOf(l.quantityMilli, l.kind)}</td>
-              <td className="hidden py-1.5 pr-2 text-right sm:table-cell">
-                <Money cents={l.unitPriceCents} />
-              </td>
+              <td className="figures hidden py-1.5 pr-2 text-right whitespace-nowrap sm:table-cell">{formatUnitPriceOf(l.unitPriceCents, l.kind)}</td>
               <td className="py-1.5 text-right">
                 <Money cents={l.amountCents} />
               </td>

@@ -62,11 +62,11 @@ export function Question({ id, label, hint, error, children }: { id: string; lab
 }
 
 /** A number typed as text: phone keypads, a unit beside it, the value kept exactly as typed. */
-export function TypedNumber({ unit, error, className = "", ...props }: ComponentProps<"input"> & { unit: string; error?: string }) {
+export function TypedNumber({ unit, error, className = "", ...props }: ComponentProps<"input"> & { unit?: string; error?: string }) {
   return (
     <span className={`flex items-center gap-2 ${className}`}>
       <input type="text" inputMode="decimal" autoComplete="off" aria-invalid={error ? true : undefined} className={`${inputClass} figures max-w-36 text-lg`} {...props} />
-      <span className="font-semibold">{unit}</span>
+      {unit ? <span className="font-semibold">{unit}</span> : null}
     </span>
   );
 }

@@ -217,7 +217,7 @@ function OccurrenceFormInner({ unitId, concerns, onLogged }: { unitId: string; c
           <Button type="button" variant="secondary" aria-label="Below zero: switch the minus sign" className="min-w-touch text-xl" onClick={flipSign}>
             ±
           </Button>
-          <TypedNumber ref={temperatureInput} aria-label="Outside temperature" unit={`°${draft.unit}`} value={draft.temperature} onChange={(e) => set("temperature", e.target.value)} error={errors.temperature} placeholder="e.g. 18" />
+          <TypedNumber ref={temperatureInput} aria-label={`Outside temperature, °${draft.unit}`} value={draft.temperature} onChange={(e) => set("temperature", e.target.value)} error={errors.temperature} placeholder="e.g. 18" />
           <UnitToggle unit={draft.unit} onChange={(u) => { set("unit", u); setPreferredUnit(u); }} />
         </span>
       </Question>

@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { uploadFiles } from "@/components/findings/form/upload-client";
 import { PhotoStrip } from "@/components/findings/photo-strip";
-import { CameraIcon, UploadProblems, UploadProgress, contentRefusal, type InFlight } from "@/components/photos/upload-parts";
+import { CameraIcon, UploadProblems, UploadProgress, contentRefusal, progressed, type InFlight } from "@/components/photos/upload-parts";
 import { Button, buttonClass } from "@/components/ui/button";
 import type { DraftPhoto } from "@/lib/occurrences/draft";
 import { ACCEPTED_WORDS, PHOTO_ACCEPT, refusalFor } from "@/lib/uploads/photo-rules";
@@ -41,12 +41,13 @@ export function OccurrencePhotoField({
       return;
     }
     setProblems([]);
-    setInFlight({ key: `${Date.now()}-${file.name}`, name: file.name, percent: 0 });
+    setInFlight({ key: `${Date.now()}-${file.name}`, name: file.name, phase: "preparing", percent: 0 });
     try {
       const [result] = await uploadFiles("occurrencePhoto", {
         files: [file],
         input: { unitId },
-        onUploadProgress: ({ progress }) => setInFlight((u) => (u ? { ...u, percent: Math.round(progress) } : u)),
+        onUploadBegin: () => setInFlight((u) => (u && u.phase === "preparing" ? { ...u, phase: "sending" } : u)),
+        onUploadProgress: ({ progress }) => setInFlight((u) => (u ? progressed(u, progress) : u)),
       });
       const data = result?.serverData as PhotoUploadResult | null | undefined;
       if (data?.ok) onChange({ photoId: data.photoId, name: data.name, url: data.url, thumbUrl: data.thumbUrl });

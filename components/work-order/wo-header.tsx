@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { StatusPill } from "@/components/ui/status-pill";
 import { workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
-import { formatDateTime } from "@/lib/format";
+import { formatDateTime, technicianLabel } from "@/lib/format";
 
 export interface WorkOrderHeaderData {
   number: number;
@@ -12,6 +12,7 @@ export interface WorkOrderHeaderData {
   unitDescription: string;
   accountName: string;
   technicianName: string | null;
+  clockedTechName?: string | null;
   promisedAt: string | null;
   poNumber: string | null;
 }
@@ -32,7 +33,7 @@ export function WorkOrderHeader({ wo, unitHref, children }: { wo: WorkOrderHeade
       <div className="mt-2 flex flex-wrap items-center gap-x-4 gap-y-2 text-sm">
         <StatusPill status={wo.status} />
         <span>
-          <span className="text-ink-faint">Tech</span> {wo.technicianName ?? "not assigned"}
+          <span className="text-ink-faint">Tech</span> {technicianLabel(wo.technicianName, wo.clockedTechName)}
         </span>
         <span>
           <span className="text-ink-faint">Promised</span> {wo.promisedAt ? formatDateTime(wo.promisedAt) : "—"}

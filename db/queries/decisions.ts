@@ -3,13 +3,14 @@ import { getDb, writeTxThen, type InSameTx, type Tx } from "@/db/client";
 import { decisions, estimateLines, statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { DECISION_LABELS, workOrderLabel } from "@/lib/domain";
-import { decideLines, type BatchOk, type DecisionRequest, type LineChange } from "@/lib/estimate";
+import { boxRootId, decideLines, type BatchOk, type DecisionRequest, type LineChange } from "@/lib/estimate";
 import { conflict, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
 import { formatCents } from "@/lib/money";
 import { recordAudit } from "./audit";
 import { budgetUsedCents, currentFiscalYear, loadEstimateContext, toAccountSettings, toEstimateLine, toShopSettings } from "./estimate-context";
 import { scopedTo } from "./scope";
+import { planStops, settleTimeBoxes, type TimeBoxNoticeDue } from "./time-box-stops";
 
 /** The work order a line belongs to, scoped: another account's line is not found. */
 export async function workOrderOfLine(user: SessionUser, lineId: string): Promise<string> {
@@ -72,7 +73,7 @@ export function describeDecisions(changes: LineChange[]): string {
  * transaction: every line or none. Refusals are 409 problems naming the
  * amounts; a line of another account is 404.
  */
-export async function decide(user: SessionUser, workOrderId: string, requests: DecisionRequest[], notify?: InSameTx<{ result: BatchOk; wo: { id: string } }>) {
+export async function decide(user: SessionUser, workOrderId: string, requests: DecisionRequest[], notify?: InSameTx<{ result: BatchOk; wo: { id: string }; timeBoxNotices: TimeBoxNoticeDue[] }>) {
   return writeTxThen(async (tx) => {
     const ctx = await loadEstimateContext(tx, user, workOrderId);
     // A released visit is closed: nothing on it waits for a decision any more, whatever state a line was left in.
@@ -96,6 +97,10 @@ export async function decide(user: SessionUser, workOrderId: string, requests: D
     }
     const at = nowIso();
     await writeLineChanges(tx, ctx.wo.id, ctx.account.id, result.changes, at);
+    // A decided diagnosis line (or extension) resizes its time box: re-plan when running clocks stop.
+    const boxes = new Set(ctx.lines.filter((l) => l.isDiagnosis && result.changes.some((c) => c.lineId === l.id)).map(boxRootId));
+    const timeBoxNotices = boxes.size ? await settleTimeBoxes(tx, at) : [];
+    for (const rootId of boxes) await planStops(tx, rootId, at);
     await tx.insert(statusEvents).values({
       workOrderId: ctx.wo.id,
       status: ctx.wo.status,
@@ -111,7 +116,7 @@ export async function decide(user: SessionUser, workOrderId: string, requests: D
       accountId: ctx.account.id,
       detail: result.changes.map((c) => ({ lineId: c.lineId, decision: c.record.decision, amountCents: c.record.amountCents, version: c.record.lineVersion })),
     });
-    return { result: result as BatchOk, wo: ctx.wo, at };
+    return { result: result as BatchOk, wo: ctx.wo, at, timeBoxNotices };
   }, notify);
 }
 

@@ -24,6 +24,7 @@ export function toEstimateLine(row: LineRow): EstimateLine {
     byStanding: row.byStanding,
     approvedAmountCents: row.approvedAmountCents,
     isDiagnosis: row.isDiagnosis,
+    extendsLineId: row.extendsLineId,
   };
 }
 

@@ -2,7 +2,7 @@ import { and, eq, inArray, isNull, ne, sql } from "drizzle-orm";
 import { writeTx, writeTxThen, type InSameTx, type Reader, type Tx } from "@/db/client";
 import { concerns, estimateLines, statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { isApprovedState, reviseLine } from "@/lib/estimate";
+import { boxRootId, isApprovedState, reviseLine } from "@/lib/estimate";
 import { conflict, invalidInput, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
 import { formatCents } from "@/lib/money";
@@ -10,6 +10,7 @@ import type { EditLineInput, NewLineInput } from "@/lib/validation/estimate-line
 import { recordAudit } from "./audit";
 import { loadEstimateContext, toAccountSettings, toEstimateLine, type EstimateContext } from "./estimate-context";
 import { scopedTo } from "./scope";
+import { planStops, settleTimeBoxes, type TimeBoxNoticeDue } from "./time-box-stops";
 
 export function assertOpen(ctx: EstimateContext): void {
   if (ctx.wo.status === "released") throw conflict("work_order_closed", "This work order was released; open a new one for more work.");
@@ -79,6 +80,8 @@ export type EditOutcome = {
   workOrderId: string;
   accountId: string;
   woNumber: number;
+  /** Notices that settling the running clocks made due, for the caller to queue in this transaction. */
+  timeBoxNotices: TimeBoxNoticeDue[];
 };
 
 /**
@@ -136,6 +139,12 @@ export async function editLine(user: SessionUser, input: EditLineInput, notify?:
       });
     }
     await tx.update(workOrders).set({ updatedAt: at }).where(eq(workOrders.id, ctx.wo.id));
+    let timeBoxNotices: TimeBoxNoticeDue[] = [];
+    if (line.isDiagnosis || row!.isDiagnosis) {
+      // The box changed size: settle what already stopped, then re-plan the running clocks.
+      timeBoxNotices = await settleTimeBoxes(tx, at);
+      await planStops(tx, boxRootId(line), at);
+    }
     await recordAudit(tx, user, {
       action: back ? "line.reopened" : "line.edited",
       entityType: "line",
@@ -151,6 +160,7 @@ export async function editLine(user: SessionUser, input: EditLineInput, notify?:
       workOrderId: ctx.wo.id,
       accountId: ctx.wo.accountId,
       woNumber: ctx.wo.number,
+      timeBoxNotices,
     };
   }, notify);
 }

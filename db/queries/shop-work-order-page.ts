@@ -39,18 +39,23 @@ export async function loadShopWorkOrderPage(user: SessionUser, id: string) {
       woLabel: workOrderLabel(w.number),
       decidedAt: l.updatedAt,
     })),
-    clockLines: view.lines.map((l) => {
-      const t = time.get(l.id);
-      return {
-        id: l.id,
-        description: l.description,
-        kind: l.kind,
-        state: l.state,
-        isDiagnosis: l.isDiagnosis,
-        approvedMilli: isApprovedState(l.state) ? Math.round(l.quantity * 1000) : 0,
-        usedMilli: t?.usedMilli ?? 0,
-        mySince: t?.runningSince[user.id] ?? null,
-      };
-    }),
+    // Extension lines fold into the diagnosis line they extend: one clock, one box.
+    clockLines: view.lines
+      .filter((l) => !l.extendsLineId)
+      .map((l) => {
+        const extensions = view.lines.filter((x) => x.extendsLineId === l.id);
+        return {
+          id: l.id,
+          description: l.description,
+          kind: l.kind,
+          state: l.state,
+          isDiagnosis: l.isDiagnosis,
+          approvedMilli: [l, ...extensions].reduce((sum, x) => sum + (isApprovedState(x.state) ? Math.round(x.quantity * 1000) : 0), 0),
+          pendingMilli: extensions.filter((x) => x.state === "proposed" || x.state === "draft").reduce((sum, x) => sum + Math.round(x.quantity * 1000), 0),
+          spans: time.get(l.id)?.spans ?? [],
+        };
+      }),
+    /** The server's clock when the page was drawn: the browser's first render uses it too (no hydration mismatch). */
+    renderedAt: Date.now(),
   };
 }

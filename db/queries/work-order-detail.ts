@@ -4,6 +4,7 @@ import { accounts, concerns, decisions, estimateLines, findingReadings, findings
 import type { SessionUser } from "@/lib/auth/session-user";
 import { SEVERITIES } from "@/lib/domain";
 import { scopedTo } from "./scope";
+import { clockedTechNameSql } from "./time-clock";
 
 export function photoUrls(photoId: string) {
   return { url: `/api/v1/photos/${photoId}`, thumbUrl: `/api/v1/photos/${photoId}/thumb` };
@@ -27,6 +28,7 @@ export async function findWorkOrder(user: SessionUser, id: string, db: Reader = 
       updatedAt: workOrders.updatedAt,
       assignedTechId: workOrders.assignedTechId,
       technicianName: users.name,
+      clockedTechName: clockedTechNameSql(),
       unitNumber: units.unitNumber,
       unitDescription: units.description,
       unitYear: units.year,

@@ -6,6 +6,7 @@ import { workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
 import { invalidInput } from "@/lib/http/problem";
 import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
 import { scopedTo } from "./scope";
+import { clockedTechNameSql } from "./time-clock";
 
 export interface WorkOrderListItem {
   id: string;
@@ -22,6 +23,8 @@ export interface WorkOrderListItem {
   accountName: string;
   technicianId: string | null;
   technicianName: string | null;
+  /** With no technician assigned: who has clocked time on the visit. */
+  clockedTechName: string | null;
   lastNote: string;
   /** A posted finding on this visit is Out of service: shown first and marked on every list. */
   outOfService: boolean;
@@ -50,6 +53,7 @@ export async function listOpenWorkOrders(
       accountName: accounts.name,
       technicianId: workOrders.assignedTechId,
       technicianName: users.name,
+      clockedTechName: clockedTechNameSql(),
       lastNote: sql<string>`coalesce((select e.note from status_events e where e.work_order_id = ${workOrders.id} order by e.at desc limit 1), '')`,
       outOfService: sql<number>`exists (select 1 from findings f where f.work_order_id = ${workOrders.id} and f.severity = 'out_of_service')`,
     })

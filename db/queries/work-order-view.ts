@@ -47,6 +47,7 @@ export async function workOrderView(user: SessionUser, id: string) {
     unitDescription: wo.unitDescription,
     accountName: wo.accountName,
     technicianName: wo.technicianName,
+    clockedTechName: wo.clockedTechName,
     timeline,
     concerns,
     findings: findings.map((f) => ({ ...f, photos: f.photos })),
@@ -73,6 +74,7 @@ export async function workOrderView(user: SessionUser, id: string) {
         byStanding: l.byStanding,
         reopenReason: l.reopenReason,
         deferredFromLineId: l.deferredFromLineId,
+        extendsLineId: l.extendsLineId,
         decision: d
           ? { by: d.byStanding ? "Standing authorisation" : (d.by ?? "Unknown"), at: d.at, decision: d.decision, amountCents: d.amountCents, note: d.note, lineVersion: d.lineVersion }
           : null,

@@ -2,7 +2,7 @@ import { eq } from "drizzle-orm";
 import { decisions, estimateLines, workOrders } from "@/db/schema";
 import type { LineKind } from "@/lib/domain";
 import { lineAmountCents } from "@/lib/money";
-import { type SeedContext, id } from "./context";
+import { type SeedContext, id, laterInShopHours, milestones } from "./context";
 
 interface LineSeed {
   kind: LineKind;
@@ -76,7 +76,10 @@ export async function seedDoneLines(ctx: SeedContext, woKey: string, account: st
   if (!template) throw new Error(`seed: no line template for "${wo.title}"`);
   const approver = id(ctx, APPROVERS[account] ?? "");
   const writer = id(ctx, "user:writer@quarry-road.example");
-  const approvedAt = new Date(Date.parse(wo.openedAt) + 4 * 3_600_000).toISOString();
+  // Written before the estimate went out, approved two hours after it went out.
+  const sent = milestones(ctx, woKey).waiting_approval;
+  if (!sent) throw new Error(`seed: ${woKey} was never sent for approval`);
+  const approvedAt = new Date(laterInShopHours(Date.parse(sent) + 2 * 3_600_000)).toISOString();
   const doneAt = wo.releasedAt ?? approvedAt;
   const rows = template.map((l, i) => {
     const quantityMilli = i === 0 ? l.quantityMilli + extraLabourMilli : l.quantityMilli;
@@ -98,7 +101,7 @@ export async function seedDoneLines(ctx: SeedContext, woKey: string, account: st
       approvedAmountCents: lineAmountCents(quantityMilli, l.unitPriceCents),
       approvedAt,
       createdBy: writer,
-      createdAt: wo.openedAt,
+      createdAt: new Date(Date.parse(sent) - 20 * 60_000).toISOString(),
       updatedAt: doneAt,
     };
   });

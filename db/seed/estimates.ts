@@ -3,7 +3,7 @@ import { budgetUsedCents, currentFiscalYear } from "@/db/queries/estimate-contex
 import { accounts, decisions, estimateLines, timeEntries, workOrders } from "@/db/schema";
 import type { Decision, LineKind, LineState } from "@/lib/domain";
 import { lineAmountCents } from "@/lib/money";
-import { type SeedContext, daysAgo, id } from "./context";
+import { type SeedContext, id, laterInShopHours, milestones, nextMilestone } from "./context";
 
 type By = "standing" | "supervisor" | "trustee" | "transport" | "office";
 const APPROVER_EMAIL: Record<Exclude<By, "standing">, string> = {
@@ -23,7 +23,6 @@ interface LineSeed {
   core?: number;
   state: LineState;
   by?: By;
-  decidedDaysAgo?: number;
   note?: string;
   diagnosis?: boolean;
   partNumber?: string;
@@ -42,7 +41,7 @@ const L = (kind: LineKind, description: string, qty: number, price: number, stat
 /** Estimates on the open visits, chosen so every limit shows on first start (issue: estimates and decisions). */
 const ESTIMATES: Record<string, LineSeed[]> = {
   "W-1042": [
-    L("labor", "Diagnose plow drift and steering wander", 1000, 15_500, "done", { concern: 0, by: "standing", decidedDaysAgo: 3, diagnosis: true }),
+    L("labor", "Diagnose plow drift and steering wander", 1000, 15_500, "done", { concern: 0, by: "standing", diagnosis: true }),
     L("labor", "Remove, hone and reseal plow lift cylinder", 4500, 14_250, "proposed", { concern: 0 }),
     L("part", "Lift cylinder seal kit, 3 in bore", 1000, 18_640, "proposed", { concern: 0, partNumber: "SK-30-114" }),
     L("part", "Hydraulic fluid, AW-32 (gal)", 5000, 1_485, "proposed", { concern: 0 }),
@@ -55,32 +54,32 @@ const ESTIMATES: Record<string, LineSeed[]> = {
     L("part", "Front brake chamber, type 24", 2000, 9_680, "proposed", { concern: 2, partNumber: "BC-24-S" }),
   ],
   "W-1043": [
-    L("labor", "Diagnose no-start: battery, cranking and key-off drain tests", 2000, 15_500, "in_progress", { concern: 0, by: "supervisor", decidedDaysAgo: 2, diagnosis: true }),
+    L("labor", "Diagnose no-start: battery, cranking and key-off drain tests", 2000, 15_500, "in_progress", { concern: 0, by: "supervisor", diagnosis: true }),
   ],
   "W-1044": [
-    L("labor", "Diagnose brake stroke and slack adjusters", 500, 15_500, "done", { concern: 0, by: "standing", decidedDaysAgo: 1, diagnosis: true }),
+    L("labor", "Diagnose brake stroke and slack adjusters", 500, 15_500, "done", { concern: 0, by: "standing", diagnosis: true }),
     L("labor", "Replace right rear slack adjuster, adjust all wheel ends", 1500, 14_250, "proposed", { concern: 0 }),
     L("part", "Automatic slack adjuster, 5.5 in arm", 1000, 16_420, "proposed", { concern: 0, partNumber: "ASA-55-R" }),
     L("part", "Rear brake shoes and drums, both sides", 1000, 188_000, "proposed", { concern: 0, partNumber: "BSD-165" }),
   ],
   "W-1045": [
-    L("labor", "Leak-down test and locate leaks", 800, 15_500, "done", { concern: 0, by: "standing", decidedDaysAgo: 4, diagnosis: true }),
-    L("part", "Glad-hand seal, trailer supply", 2000, 495, "approved", { concern: 0, by: "office", decidedDaysAgo: 3 }),
-    L("part", "Air line, 3/8 in nylon (ft)", 12_000, 185, "approved", { concern: 0, by: "office", decidedDaysAgo: 3 }),
-    L("labor", "Replace service line at rear axle, retest", 1600, 14_250, "in_progress", { concern: 0, by: "office", decidedDaysAgo: 3 }),
+    L("labor", "Leak-down test and locate leaks", 800, 15_500, "done", { concern: 0, by: "standing", diagnosis: true }),
+    L("part", "Glad-hand seal, trailer supply", 2000, 495, "approved", { concern: 0, by: "office" }),
+    L("part", "Air line, 3/8 in nylon (ft)", 12_000, 185, "approved", { concern: 0, by: "office" }),
+    L("labor", "Replace service line at rear axle, retest", 1600, 14_250, "in_progress", { concern: 0, by: "office" }),
   ],
   "W-1046": [
-    L("labor", "Remove tilt cylinder, disassemble, inspect", 3200, 14_250, "done", { concern: 0, by: "supervisor", decidedDaysAgo: 5 }),
-    L("sublet", "Re-chrome tilt cylinder rod (machine shop)", 1000, 68_000, "approved", { concern: 0, by: "supervisor", decidedDaysAgo: 5 }),
-    L("part", "Tilt cylinder seal kit", 1000, 21_475, "approved", { concern: 0, by: "supervisor", decidedDaysAgo: 5 }),
+    L("labor", "Remove tilt cylinder, disassemble, inspect", 3200, 14_250, "done", { concern: 0, by: "supervisor" }),
+    L("sublet", "Re-chrome tilt cylinder rod (machine shop)", 1000, 68_000, "approved", { concern: 0, by: "supervisor" }),
+    L("part", "Tilt cylinder seal kit", 1000, 21_475, "approved", { concern: 0, by: "supervisor" }),
   ],
   "W-1048": [
-    L("labor", "Trace ABS fault, repair sensor lead", 1400, 14_250, "done", { concern: 0, by: "office", decidedDaysAgo: 4 }),
-    L("part", "Weatherproof splice kit", 1000, 2_350, "done", { concern: 0, by: "office", decidedDaysAgo: 4 }),
+    L("labor", "Trace ABS fault, repair sensor lead", 1400, 14_250, "done", { concern: 0, by: "office" }),
+    L("part", "Weatherproof splice kit", 1000, 2_350, "done", { concern: 0, by: "office" }),
   ],
   "W-1049": [
-    L("labor", "Diagnose liftgate, repair ground", 1300, 14_250, "done", { concern: 0, by: "supervisor", decidedDaysAgo: 2 }),
-    L("part", "Ground strap, 4 gauge", 1000, 2_875, "done", { concern: 0, by: "supervisor", decidedDaysAgo: 2 }),
+    L("labor", "Diagnose liftgate, repair ground", 1300, 14_250, "done", { concern: 0, by: "supervisor" }),
+    L("part", "Ground strap, 4 gauge", 1000, 2_875, "done", { concern: 0, by: "supervisor" }),
   ],
   "W-1050": [
     L("labor", "Pressure-wash radiator and charge-air cooler cores", 2500, 14_250, "proposed", { concern: 0 }),
@@ -94,8 +93,8 @@ const DEFERRED: { wo: string; lines: LineSeed[] }[] = [
   {
     wo: "W-1001",
     lines: [
-      L("part", "Plow cutting edge, carbide insert (plan for spring)", 1000, 74_500, "held", { by: "supervisor", decidedDaysAgo: 60, note: "Next budget year." }),
-      L("labor", "Sandblast and repaint dump body", 9000, 14_250, "declined", { by: "supervisor", decidedDaysAgo: 60, note: "Not this year." }),
+      L("part", "Plow cutting edge, carbide insert (plan for spring)", 1000, 74_500, "held", { by: "supervisor", note: "Next budget year." }),
+      L("labor", "Sandblast and repaint dump body", 9000, 14_250, "declined", { by: "supervisor", note: "Not this year." }),
     ],
   },
 ];
@@ -105,10 +104,10 @@ export async function seedEstimates(ctx: SeedContext): Promise<void> {
   for (const d of DEFERRED) await insertLines(ctx, d.wo, d.lines);
   await tightenSchoolBudget(ctx);
 
-  // Diagnosis on T-9: 1.7 of 2.0 approved hours used, so the 80 % warning shows.
-  const [diag] = await ctx.db.select({ id: estimateLines.id }).from(estimateLines).where(eqWo(ctx, "W-1043"));
+  // Diagnosis on T-9: 1 h 42 min of the 2.0 h approved used, so the 80 % warning shows. Clocked after the approval.
+  const [diag] = await ctx.db.select({ id: estimateLines.id, approvedAt: estimateLines.approvedAt }).from(estimateLines).where(eqWo(ctx, "W-1043"));
   const tech = id(ctx, "user:tech@quarry-road.example");
-  const start = Date.parse(daysAgo(ctx, 1, 14));
+  const start = Math.max(Date.parse(diag!.approvedAt!) + 30 * 60_000, Date.parse(milestones(ctx, "W-1043").diagnosing!) + 10 * 60_000);
   await ctx.db.insert(timeEntries).values([
     { lineId: diag!.id, workOrderId: id(ctx, "wo:W-1043"), techId: tech, startedAt: new Date(start).toISOString(), endedAt: new Date(start + 60 * 60_000).toISOString() },
     { lineId: diag!.id, workOrderId: id(ctx, "wo:W-1043"), techId: tech, startedAt: new Date(start + 3 * 3_600_000).toISOString(), endedAt: new Date(start + 3 * 3_600_000 + 42 * 60_000).toISOString() },
@@ -119,6 +118,30 @@ function eqWo(ctx: SeedContext, woKey: string) {
   return eqSql(estimateLines.workOrderId, id(ctx, `wo:${woKey}`));
 }
 
+const MIN = 60_000;
+
+/**
+ * When a line was written and decided, in the visit's own order: diagnosis the standing
+ * authorisation covers is written and started 40–45 min after check-in (before Diagnosing);
+ * other lines are written just before the estimate goes out; the customer decides after it went
+ * out and before the next status.
+ */
+function lineTimes(ctx: SeedContext, woKey: string, l: LineSeed): { createdAt: string; decidedAt: string | null } {
+  const m = milestones(ctx, woKey);
+  const at = (ms: number) => new Date(Math.min(ms, ctx.now.getTime() - 10 * MIN)).toISOString();
+  const checkedIn = Date.parse(m.checked_in!);
+  if (l.by === "standing") return { createdAt: at(checkedIn + 40 * MIN), decidedAt: at(checkedIn + 45 * MIN) };
+  const sent = m.waiting_approval ? Date.parse(m.waiting_approval) : null;
+  const written = sent === null ? Math.max(checkedIn + 50 * MIN, ctx.now.getTime() - 3 * 60 * MIN) : Math.max(checkedIn + 20 * MIN, sent - 20 * MIN);
+  if (!l.by) return { createdAt: at(written), decidedAt: null };
+  if (sent === null) throw new Error(`seed: ${woKey} has decided lines but was never sent`);
+  const next = nextMilestone(ctx, woKey, m.waiting_approval!);
+  const until = next ? Date.parse(next) : ctx.now.getTime() - 20 * MIN;
+  // In the customer's working day, and never before the estimate reached them.
+  const decided = laterInShopHours(sent + (until - sent) * 0.3);
+  return { createdAt: at(written), decidedAt: at(Math.min(decided, until - MIN)) };
+}
+
 async function insertLines(ctx: SeedContext, woKey: string, lines: LineSeed[]): Promise<void> {
   const woId = id(ctx, `wo:${woKey}`);
   const [wo] = await ctx.db.select({ accountId: workOrders.accountId }).from(workOrders).where(eqSql(workOrders.id, woId));
@@ -126,7 +149,8 @@ async function insertLines(ctx: SeedContext, woKey: string, lines: LineSeed[]): 
     const amount = lineAmountCents(l.qty, l.price);
     const decided = l.by !== undefined;
     const approved = decided && ["approved", "in_progress", "done"].includes(l.state);
-    const at = decided ? daysAgo(ctx, l.decidedDaysAgo ?? 1, 16) : daysAgo(ctx, 1, 15);
+    const { createdAt, decidedAt } = lineTimes(ctx, woKey, l);
+    const at = decidedAt ?? createdAt;
     const approverId = l.by && l.by !== "standing" ? id(ctx, `user:${APPROVER_EMAIL[l.by]}`) : null;
     const [row] = await ctx.db
       .insert(estimateLines)
@@ -149,7 +173,7 @@ async function insertLines(ctx: SeedContext, woKey: string, lines: LineSeed[]): 
         approvedAmountCents: approved ? amount : null,
         approvedAt: approved ? at : null,
         createdBy: id(ctx, "user:writer@quarry-road.example"),
-        createdAt: at,
+        createdAt,
         updatedAt: at,
       })
       .returning({ id: estimateLines.id });

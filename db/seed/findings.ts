@@ -2,7 +2,7 @@ import { findingReadings, findings, photos, workOrders } from "@/db/schema";
 import { eq } from "drizzle-orm";
 import type { Severity } from "@/lib/domain";
 import { checkReading, type ReadingInput } from "@/lib/specs";
-import { type SeedContext, daysAgo, id } from "./context";
+import { type SeedContext, id, inShopHours, milestones, nextMilestone } from "./context";
 import type { DemoDrawing } from "./demo-drawings";
 import type { DemoPhotos } from "./demo-photos";
 
@@ -10,7 +10,6 @@ interface FindingSeed {
   wo: string;
   concern?: number;
   tech: "tech" | "tech2";
-  hoursAgo: number;
   title: string;
   severity: Severity;
   note: string;
@@ -21,7 +20,7 @@ interface FindingSeed {
 // Readings on both sides of their limits; the verdicts are worked out by lib/specs, as for a technician's post.
 const FINDINGS: FindingSeed[] = [
   {
-    wo: "W-1044", concern: 0, tech: "tech2", hoursAgo: 20, severity: "out_of_service",
+    wo: "W-1044", concern: 0, tech: "tech2", severity: "out_of_service",
     title: "Right rear brake stroke beyond the readjustment limit",
     note: "Slack adjuster on the right rear is **not adjusting**: it wound back out after a manual adjustment.\n\n- Left rear is within the limit\n- Right rear is ¼ in past it\n\nThe bus should not carry students until this is fixed.",
     photos: ["brakeChamberLong"],
@@ -31,19 +30,19 @@ const FINDINGS: FindingSeed[] = [
     ],
   },
   {
-    wo: "W-1042", concern: 1, tech: "tech", hoursAgo: 50, severity: "fix_now",
+    wo: "W-1042", concern: 1, tech: "tech", severity: "fix_now",
     title: "Drag link and both tie-rod ends worn",
     note: "Play felt by hand at both tie-rod ends and the drag link's lower end. The left boot is **torn** and the grease is gone.",
     photos: ["tieRodEnd"],
   },
   {
-    wo: "W-1042", concern: 0, tech: "tech", hoursAgo: 54, severity: "fix_now",
+    wo: "W-1042", concern: 0, tech: "tech", severity: "fix_now",
     title: "Plow lift cylinder rod scored; seals bypassing",
     note: "Plow drops about 3 in an hour with the valve in hold. Rod is scored over about 8 in of its travel: reseal alone will not last.",
     photos: ["liftCylinder"],
   },
   {
-    wo: "W-1042", concern: 2, tech: "tech", hoursAgo: 46, severity: "plan",
+    wo: "W-1042", concern: 2, tech: "tech", severity: "plan",
     title: "Front brake chambers at the stroke limit; steer tyres fine",
     note: "Left front stroke is right at the limit, right front just under. Adjusted both; plan chambers and adjusters at the next service.",
     photos: ["brakeChamberOk", "tread"],
@@ -55,7 +54,7 @@ const FINDINGS: FindingSeed[] = [
     ],
   },
   {
-    wo: "W-1043", concern: 0, tech: "tech", hoursAgo: 26, severity: "fix_now",
+    wo: "W-1043", concern: 0, tech: "tech", severity: "fix_now",
     title: "Key-off drain above this truck's figure",
     note: "Batteries are healthy when warm. After an hour asleep the truck still draws **180 mA**; this unit's accepted figure is 120 mA. Pulling fuses one at a time next.",
     photos: ["batteries", "drainMeter"],
@@ -66,7 +65,7 @@ const FINDINGS: FindingSeed[] = [
     ],
   },
   {
-    wo: "W-1045", concern: 0, tech: "tech", hoursAgo: 70, severity: "fix_now",
+    wo: "W-1045", concern: 0, tech: "tech", severity: "fix_now",
     title: "Air system leaks down: cracked service line",
     note: "Soapy water shows a crack in the service line at the rear axle, and the trailer supply glad-hand seal is split.",
     photos: ["airLine"],
@@ -76,12 +75,28 @@ const FINDINGS: FindingSeed[] = [
     ],
   },
   {
-    wo: "W-1050", concern: 0, tech: "tech", hoursAgo: 30, severity: "fix_now",
+    wo: "W-1050", concern: 0, tech: "tech", severity: "fix_now",
     title: "Radiator core packed with fines",
     note: "Core face is packed with crusher fines across most of its height. Fan belt glazed.",
     photos: ["radiator"],
   },
 ];
+
+/**
+ * Findings are posted while the unit is diagnosed: spread between the move to Diagnosing and the
+ * next status (or a little before now, if it is still being diagnosed), in the order listed.
+ */
+function findingTime(ctx: SeedContext, f: FindingSeed): string {
+  const diagnosing = milestones(ctx, f.wo).diagnosing;
+  if (!diagnosing) throw new Error(`seed: ${f.wo} has findings but was never diagnosed`);
+  const start = Date.parse(diagnosing);
+  const end = Date.parse(nextMilestone(ctx, f.wo, diagnosing) ?? new Date(ctx.now.getTime() - 30 * 60_000).toISOString());
+  // A finding every 40 minutes or so from the start of diagnosis, in the shop's working day.
+  const same = FINDINGS.filter((x) => x.wo === f.wo);
+  const k = same.indexOf(f) + 1;
+  const step = Math.min(40 * 60_000, (end - start) / (same.length + 1));
+  return new Date(inShopHours(start + step * k)).toISOString();
+}
 
 /** Findings on the open demo visits, with drawn photos and checked readings. */
 export async function seedFindings(ctx: SeedContext, demoPhotos: DemoPhotos | null): Promise<void> {
@@ -94,7 +109,7 @@ export async function seedFindings(ctx: SeedContext, demoPhotos: DemoPhotos | nu
       .limit(1);
     if (!wo) throw new Error(`seed: no work order ${f.wo}`);
     const techId = id(ctx, `user:${f.tech}@quarry-road.example`);
-    const at = daysAgo(ctx, f.hoursAgo / 24, 12);
+    const at = findingTime(ctx, f);
     const [row] = await ctx.db
       .insert(findings)
       .values({

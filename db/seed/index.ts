@@ -27,7 +27,7 @@ export async function seedDatabase(
     // Stored before the transaction: the upload service is not part of it.
     const demoPhotos = options.photos === false ? null : await storeDemoPhotos();
     await db.transaction(async (tx) => {
-      const ctx: SeedContext = { db: tx, now: options.now ?? new Date(), ids: new Map() };
+      const ctx: SeedContext = { db: tx, now: options.now ?? new Date(), ids: new Map(), milestones: new Map() };
       await seedShop(ctx, passwordHash);
       await seedAccounts(ctx, passwordHash);
       await seedUnits(ctx);

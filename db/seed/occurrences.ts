@@ -3,8 +3,9 @@ import { concerns, occurrences, workOrders } from "@/db/schema";
 import { celsiusFromFahrenheit } from "@/lib/occurrences/temperature";
 import type { Symptom } from "@/lib/occurrences/symptoms";
 import { type SeedContext, daysAgo, id } from "./context";
+import { usualAfternoonHighF, usualMorningLowF } from "./weather";
 
-interface OccurrenceSeed {
+export interface OccurrenceSeed {
   daysAgo: number;
   /** Hour UTC: 12–13 is 6–7 a.m. in the shop's time zone, when trucks are started. */
   hour: number;
@@ -21,39 +22,102 @@ interface OccurrenceSeed {
 const FOREMAN = "foreman@brennan-twp.example";
 const SUPERVISOR = "supervisor@brennan-twp.example";
 const CLERK = "clerk@brennan-twp.example";
+const DAY = 86_400_000;
+
+/** A morning: days ago; hours parked; how far the morning was from the usual low (°F); a weekend soak lands on a Monday. */
+type Morning = { daysAgo: number; parked: number; off: number; voltsRead: boolean; by: string; weekend?: boolean };
+
+const T9_MORNINGS: Morning[] = [
+  { daysAgo: 98, parked: 14, off: 3, voltsRead: false, by: FOREMAN },
+  { daysAgo: 91, parked: 13.5, off: -2, voltsRead: false, by: FOREMAN },
+  { daysAgo: 84, parked: 62, off: 8, voltsRead: true, by: SUPERVISOR, weekend: true },
+  { daysAgo: 77, parked: 15, off: -6, voltsRead: true, by: FOREMAN },
+  { daysAgo: 70, parked: 11, off: -3, voltsRead: false, by: FOREMAN },
+  { daysAgo: 63, parked: 8, off: 1, voltsRead: true, by: FOREMAN },
+  { daysAgo: 56, parked: 16, off: -9, voltsRead: true, by: FOREMAN },
+  { daysAgo: 49, parked: 11.5, off: 0, voltsRead: false, by: CLERK },
+  { daysAgo: 42, parked: 64, off: -4, voltsRead: true, by: SUPERVISOR, weekend: true },
+  { daysAgo: 35, parked: 13, off: 4, voltsRead: true, by: FOREMAN },
+  { daysAgo: 28, parked: 14, off: -7, voltsRead: true, by: FOREMAN },
+  { daysAgo: 21, parked: 11.5, off: -1, voltsRead: false, by: FOREMAN },
+  { daysAgo: 14, parked: 38, off: -3, voltsRead: true, by: FOREMAN, weekend: true },
+  { daysAgo: 7, parked: 15, off: 2, voltsRead: true, by: SUPERVISOR },
+  { daysAgo: 4, parked: 14, off: -8, voltsRead: true, by: FOREMAN },
+];
+
+const NO_START_NOTES = ["Jumped it from the service pickup.", "Clicked, then nothing. Jumped.", "", "Driver called it in from the salt barn.", ""];
+const SLOW_NOTES = ["Cranked slow, caught on the third try.", "Slow, but it started.", "Cranked long before it caught."];
+
+/** Moves a day back to the Monday on or before it, in the shop's days (a soak over a weekend ends on a Monday morning). */
+function mondayOnOrBefore(ctx: SeedContext, days: number): number {
+  const weekday = new Date(ctx.now.getTime() - days * DAY).getUTCDay(); // 0 Sunday … 6 Saturday
+  return days + ((weekday + 6) % 7);
+}
 
 /**
- * T-9's no-start, a season of mornings: it fails after a long soak below about
- * 25 °F and starts (slowly) after a short stop or a milder weekend. Resting
- * voltage is low every time, which points the shop at a key-off drain.
+ * T-9's no-start: a key-off drain (found on this visit) flattens the batteries over a long park.
+ * After a night in real cold, or any weekend, it will not start; after a milder night it cranks
+ * slowly and catches. Temperatures follow the demo town's season for each date, so a September
+ * morning is a September morning.
  */
-export const T9_NO_START: OccurrenceSeed[] = [
-  { daysAgo: 98, hour: 12, hoursParked: 14, tempF: 21, volts: null, symptom: "slow_crank", recovered: true, note: "Cranked slow, caught on the third try.", by: FOREMAN },
-  { daysAgo: 91, hour: 12, hoursParked: 13.5, tempF: 17, volts: null, symptom: "no_start", recovered: false, note: "Jumped it from the service pickup.", by: FOREMAN },
-  { daysAgo: 84, hour: 13, hoursParked: 62, tempF: 33, volts: 12.2, symptom: "slow_crank", recovered: true, note: "Monday after a mild weekend. Slow, but it started.", by: SUPERVISOR },
-  { daysAgo: 77, hour: 12, hoursParked: 15, tempF: 9, volts: 11.9, symptom: "no_start", recovered: false, note: "Clicked, then nothing. Jumped.", by: FOREMAN },
-  { daysAgo: 70, hour: 12, hoursParked: 11, tempF: 14, volts: null, symptom: "no_start", recovered: false, note: "", by: FOREMAN },
-  { daysAgo: 63, hour: 12, hoursParked: 8, tempF: 12, volts: 12.1, symptom: "slow_crank", recovered: true, note: "Parked at 10 p.m. after plowing; slow at 6 but it went.", by: FOREMAN },
-  { daysAgo: 56, hour: 13, hoursParked: 16, tempF: -3, volts: 11.7, symptom: "no_start", recovered: false, note: "Coldest morning so far. Needed two jumps.", by: FOREMAN },
-  { daysAgo: 49, hour: 12, hoursParked: 11.5, tempF: 19, volts: null, symptom: "no_start", recovered: false, note: "Driver called it in from the salt barn.", by: CLERK },
-  { daysAgo: 42, hour: 13, hoursParked: 64, tempF: 6, volts: 11.6, symptom: "no_start", recovered: false, note: "After the holiday weekend. Would not turn over at all.", by: SUPERVISOR },
-  { daysAgo: 35, hour: 12, hoursParked: 13, tempF: 23, volts: 12.0, symptom: "stalled", recovered: false, note: "Cranked slow, ran ten seconds, died. Jumped.", by: FOREMAN },
-  { daysAgo: 28, hour: 12, hoursParked: 14, tempF: 2, volts: 11.8, symptom: "no_start", recovered: false, note: "", by: FOREMAN },
-  { daysAgo: 21, hour: 12, hoursParked: 11.5, tempF: 16, volts: null, symptom: "no_start", recovered: false, note: "", by: FOREMAN },
-  { daysAgo: 14, hour: 13, hoursParked: 38, tempF: 11, volts: 11.8, symptom: "no_start", recovered: false, note: "Sat through Sunday. Jumped.", by: FOREMAN },
-  { daysAgo: 7, hour: 12, hoursParked: 15, tempF: 20, volts: 11.9, symptom: "no_start", recovered: false, note: "", by: SUPERVISOR },
-  { daysAgo: 4, hour: 12, hoursParked: 14, tempF: -1, volts: 11.7, symptom: "no_start", recovered: false, note: "Booked it in with the shop after this one.", by: FOREMAN },
-];
+export function t9NoStart(ctx: SeedContext): OccurrenceSeed[] {
+  return T9_MORNINGS.map((m, i) => {
+    const days = m.weekend ? mondayOnOrBefore(ctx, m.daysAgo) : m.daysAgo;
+    const tempF = Math.round(usualMorningLowF(new Date(ctx.now.getTime() - days * DAY)) + m.off);
+    const fails = m.parked >= 36 || (m.parked >= 10 && tempF <= 28);
+    const volts = m.voltsRead ? Math.max(11.5, Math.min(12.4, Math.round((12.45 - 0.012 * m.parked - Math.max(0, 40 - tempF) * 0.006) * 10) / 10)) : null;
+    const last = i === T9_MORNINGS.length - 1;
+    const note = last
+      ? "Booked it in with the shop after this one."
+      : m.weekend
+        ? fails
+          ? "Sat through the weekend. Would not turn over; jumped."
+          : "Monday after the weekend. Slow, but it started."
+        : fails
+          ? NO_START_NOTES[i % NO_START_NOTES.length]!
+          : SLOW_NOTES[i % SLOW_NOTES.length]!;
+    return {
+      daysAgo: days,
+      hour: 12 + (i % 2),
+      hoursParked: m.parked,
+      tempF,
+      volts,
+      symptom: fails ? "no_start" : "slow_crank",
+      recovered: !fails,
+      note,
+      by: m.by,
+    };
+  });
+}
 
 const BUS_OFFICE = "transport@alder-falls-schools.example";
 
 /** Bus 14's ABS lamp: comes on in wet weather on the depot turn, out after a restart. */
-export const BUS14_ABS_LAMP: OccurrenceSeed[] = [
-  { daysAgo: 26, hour: 21, hoursParked: 0.5, tempF: 38, volts: null, symptom: "warning_lamp", recovered: true, note: "Came on turning left into the depot in the rain; out after a restart.", by: BUS_OFFICE },
-  { daysAgo: 17, hour: 13, hoursParked: 1, tempF: 35, volts: null, symptom: "warning_lamp", recovered: true, note: "Wet, salted road on the morning run. Out by the next stop.", by: BUS_OFFICE },
-  { daysAgo: 9, hour: 20, hoursParked: 0.2, tempF: 44, volts: null, symptom: "warning_lamp", recovered: true, note: "Again on the depot turn, raining.", by: BUS_OFFICE },
-  { daysAgo: 2, hour: 14, hoursParked: null, tempF: 31, volts: null, symptom: "warning_lamp", recovered: null, note: "Driver saw it flicker; did not stop.", by: BUS_OFFICE },
-];
+export function bus14AbsLamp(ctx: SeedContext): OccurrenceSeed[] {
+  const runs = [
+    { daysAgo: 26, hour: 21, parked: 0.5, afternoon: true, what: "turning left into the depot", after: "out after a restart." },
+    { daysAgo: 17, hour: 13, parked: 1, afternoon: false, what: "on the morning run", after: "out by the next stop." },
+    { daysAgo: 9, hour: 20, parked: 0.2, afternoon: true, what: "again on the depot turn", after: "out after a restart." },
+    { daysAgo: 2, hour: 14, parked: null, afternoon: false, what: "flickered on the run; the driver did not stop", after: "" },
+  ];
+  return runs.map((r, i) => {
+    const at = new Date(ctx.now.getTime() - r.daysAgo * DAY);
+    const tempF = Math.round((r.afternoon ? usualAfternoonHighF(at) - 6 : usualMorningLowF(at) + 4) + (i % 2 ? -2 : 1));
+    // Salt goes down only when the road can freeze.
+    const road = tempF <= 34 ? "Wet, salted road" : "Wet road, raining";
+    return {
+      daysAgo: r.daysAgo,
+      hour: r.hour,
+      hoursParked: r.parked,
+      tempF,
+      volts: null,
+      symptom: "warning_lamp" as const,
+      recovered: r.after ? true : null,
+      note: `${road}: came on ${r.what}${r.after ? `; ${r.after}` : "."}`,
+      by: BUS_OFFICE,
+    };
+  });
+}
 
 async function insertLog(ctx: SeedContext, unitKey: string, account: string, concernId: string, log: OccurrenceSeed[]) {
   await ctx.db.insert(occurrences).values(
@@ -77,7 +141,7 @@ async function insertLog(ctx: SeedContext, unitKey: string, account: string, con
 }
 
 export async function seedOccurrences(ctx: SeedContext): Promise<void> {
-  await insertLog(ctx, "T-9", "township", id(ctx, "concern:W-1043:0"), T9_NO_START);
+  await insertLog(ctx, "T-9", "township", id(ctx, "concern:W-1043:0"), t9NoStart(ctx));
 
   // Bus 14 is not in the shop: the concern was raised on its last visit and stays open on the unit.
   const busId = id(ctx, "unit:BUS-14");
@@ -101,5 +165,5 @@ export async function seedOccurrences(ctx: SeedContext): Promise<void> {
     })
     .returning({ id: concerns.id });
   ctx.ids.set("concern:BUS-14:abs", concern!.id);
-  await insertLog(ctx, "BUS-14", "schools", concern!.id, BUS14_ABS_LAMP);
+  await insertLog(ctx, "BUS-14", "schools", concern!.id, bus14AbsLamp(ctx));
 }

@@ -1,8 +1,9 @@
 import { eq } from "drizzle-orm";
 import { concerns, counters, statusEvents, workOrders } from "@/db/schema";
 import { WORK_ORDER_STATUSES, type WorkOrderStatus } from "@/lib/domain";
-import { type SeedContext, daysAgo, id } from "./context";
+import { type SeedContext, daysAgo, id, inShopHours } from "./context";
 import { UNIT_SEEDS } from "./units";
+import { isColdSeason } from "./weather";
 
 interface ConcernSeed {
   complaint: string;
@@ -24,12 +25,14 @@ interface WorkOrderSeed {
   poNumber?: string;
   concerns: ConcernSeed[];
   notes?: Partial<Record<WorkOrderStatus, string>>;
+  /** The statuses it went through, when not simply every one up to its status in order. */
+  steps?: WorkOrderStatus[];
 }
 
 export const OPEN_WORK_ORDERS: WorkOrderSeed[] = [
   {
     key: "W-1042", number: 1042, unit: "T-14", status: "waiting_approval", tech: "tech", openedDaysAgo: 3, promisedInDays: 4,
-    title: "Plow hydraulics, steering and brakes before storm season", poNumber: "BT-2026-0412",
+    title: "Plow hydraulics, steering and brakes", poNumber: "BT-2026-0412",
     concerns: [
       { complaint: "Plow drifts down overnight with the valve in hold.", cause: "Lift cylinder piston seals bypassing; scoring on the rod.", correction: "" },
       { complaint: "Truck wanders at highway speed.", cause: "Drag link and both tie-rod ends worn past limits.", correction: "" },
@@ -39,15 +42,20 @@ export const OPEN_WORK_ORDERS: WorkOrderSeed[] = [
   },
   {
     key: "W-1043", number: 1043, unit: "T-9", status: "diagnosing", tech: "tech", openedDaysAgo: 2, promisedInDays: 3,
-    title: "No-start after cold nights",
+    // The diagnosis hours were approved before the tech started: checked in, sent, then diagnosing.
+    steps: ["checked_in", "waiting_approval", "diagnosing"],
+    title: "",
     concerns: [
       {
-        complaint: "Cranks slowly and will not start after sitting overnight in the cold; fine once jumped.",
+        complaint: "",
         intermittent: true,
         recordHint: "Note how long it sat and the outside temperature; if you can, read battery voltage before cranking.",
       },
     ],
-    notes: { diagnosing: "Batteries load-tested fine warm. Setting up a key-off drain test overnight." },
+    notes: {
+      waiting_approval: "Asked for 2.0 h of diagnosis: battery, cranking and key-off drain tests.",
+      diagnosing: "Batteries load-tested fine warm. Setting up a key-off drain test overnight.",
+    },
   },
   {
     key: "W-1044", number: 1044, unit: "BUS-22", status: "waiting_approval", tech: "tech2", openedDaysAgo: 1, promisedInDays: 1,
@@ -102,18 +110,44 @@ const HISTORY_TITLES = [
   "Hydraulic hose replacement",
 ];
 
-function timeline(seed: { status: WorkOrderStatus; openedDaysAgo: number; notes?: Partial<Record<WorkOrderStatus, string>> }, ctx: SeedContext) {
-  const last = WORK_ORDER_STATUSES.indexOf(seed.status);
-  const steps = WORK_ORDER_STATUSES.slice(0, last + 1);
-  // Open visits: moves spread from opening to an hour ago. Past visits took three days.
-  const opened = ctx.now.getTime() - Math.max(seed.openedDaysAgo, 0.1) * 86_400_000;
-  const end = seed.status === "released" ? opened + 3 * 86_400_000 : ctx.now.getTime() - 3_600_000;
-  const step = (end - opened) / Math.max(steps.length - 1, 1);
+const HOUR = 3_600_000;
+
+/**
+ * The statuses a visit went through and when. Checked in at 8 a.m. shop time (13:00 UTC), on to
+ * the next status an hour later, the rest spread evenly towards an hour ago (open visits) or to
+ * its release three days later at 10 a.m. (past visits, invoiced that afternoon).
+ */
+function timeline(seed: Pick<WorkOrderSeed, "status" | "openedDaysAgo" | "notes" | "steps">, ctx: SeedContext) {
+  const steps = seed.steps ?? WORK_ORDER_STATUSES.slice(0, WORK_ORDER_STATUSES.indexOf(seed.status) + 1);
+  const now = ctx.now.getTime();
+  const released = seed.status === "released";
+  const opened = released ? Date.parse(daysAgo(ctx, seed.openedDaysAgo, 13)) : Math.min(Date.parse(daysAgo(ctx, seed.openedDaysAgo, 13)), now - 3 * HOUR);
+  const end = released ? Date.parse(daysAgo(ctx, seed.openedDaysAgo - 3, 15)) : now - HOUR;
+  const second = Math.min(opened + HOUR, end);
+  // Past visits end at their release; an open visit has been in its last status a while, not a minute.
+  const spans = released ? Math.max(steps.length - 2, 1) : Math.max(steps.length - 1, 1);
+  const times = steps.map((_, i) => (i === 0 ? opened : i === 1 ? second : Math.min(inShopHours(second + ((end - second) * (i - 1)) / spans), end)));
   return steps.map((status, i) => ({
     status,
     note: seed.notes?.[status] ?? (i === 0 ? "Unit checked in." : ""),
-    at: new Date(opened + step * i).toISOString(),
+    at: new Date(times[i]!).toISOString(),
   }));
+}
+
+/** T-9's complaint as the fleet would put it in this season (the seed is laid out relative to now). */
+function seasonal(wo: WorkOrderSeed, ctx: SeedContext): WorkOrderSeed {
+  if (wo.key !== "W-1043") return wo;
+  const cold = isColdSeason(ctx.now);
+  return {
+    ...wo,
+    title: cold ? "No-start after cold nights" : "No-start after sitting overnight",
+    concerns: wo.concerns.map((c) => ({
+      ...c,
+      complaint: cold
+        ? "Cranks slowly and will not start after sitting overnight in the cold; fine once jumped."
+        : "Cranks slowly, or will not start, after sitting overnight or over a weekend; fine once jumped.",
+    })),
+  };
 }
 
 export async function seedWorkOrders(ctx: SeedContext): Promise<void> {
@@ -148,7 +182,7 @@ export async function seedWorkOrders(ctx: SeedContext): Promise<void> {
   if (number >= 1042) throw new Error("seed: history numbers ran into the open work orders");
 
   for (const wo of OPEN_WORK_ORDERS) {
-    ctx.ids.set(`wo:${wo.key}`, await insertWorkOrder(ctx, wo, techs, writer));
+    ctx.ids.set(`wo:${wo.key}`, await insertWorkOrder(ctx, seasonal(wo, ctx), techs, writer));
   }
   const maxNumber = Math.max(...OPEN_WORK_ORDERS.map((w) => w.number));
   await ctx.db.update(counters).set({ value: maxNumber }).where(eq(counters.name, "work_order"));
@@ -162,6 +196,9 @@ async function insertWorkOrder(
 ): Promise<string> {
   const unit = UNIT_SEEDS.find((u) => u.key === wo.unit)!;
   const events = timeline(wo, ctx);
+  const marks: Partial<Record<WorkOrderStatus, string>> = {};
+  for (const e of events) marks[e.status] ??= e.at;
+  ctx.milestones.set(wo.key, marks);
   const openedAt = events[0]!.at;
   const lastAt = events.at(-1)!.at;
   const released = wo.status === "released";
@@ -175,7 +212,8 @@ async function insertWorkOrder(
       title: wo.title,
       assignedTechId: wo.tech ? techs[wo.tech] : null,
       promisedAt: wo.promisedInDays === undefined ? null : daysAgo(ctx, -wo.promisedInDays, 22),
-      poNumber: wo.poNumber ?? null,
+      // The fleet's PO numbers carry this year, whatever year the demo is loaded in.
+      poNumber: wo.poNumber?.replace(/-20\d\d-/, `-${ctx.now.getUTCFullYear()}-`) ?? null,
       openedAt,
       sentForApprovalAt: events.find((e) => e.status === "waiting_approval")?.at ?? null,
       releasedAt: released ? lastAt : null,
@@ -201,7 +239,8 @@ async function insertWorkOrder(
         intermittent: c.intermittent ?? false,
         recordHint: c.recordHint ?? "",
         createdBy: writer,
-        createdAt: openedAt,
+        // An intermittent concern stays open on the unit across visits; T-9's log goes back a season.
+        createdAt: c.intermittent ? daysAgo(ctx, wo.openedDaysAgo + 100, 14) : openedAt,
       })),
     )
     .returning({ id: concerns.id });

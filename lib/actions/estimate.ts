@@ -9,6 +9,8 @@ import { guardedAction } from "@/lib/auth/guarded-action";
 import { CAN } from "@/lib/auth/policy";
 import { queueCreditNote } from "@/lib/mail/invoice-notices";
 import { queueEstimateReady, queueLineReopened } from "@/lib/notifications/estimate";
+import { queueTimeBoxNotices } from "@/lib/notifications/time-box";
+import { scheduleTimeBoxWatch } from "@/lib/notifications/time-box-watch";
 import { editLineInput, lineRefInput, newLineInput } from "@/lib/validation/estimate-line";
 import { lineAmountCents } from "@/lib/money";
 
@@ -27,6 +29,7 @@ export const addLineAction = guardedAction({ roles: CAN.writeEstimates, input: n
 
 export const editLineAction = guardedAction({ roles: CAN.writeEstimates, input: editLineInput }, async ({ user, input }) => {
   const result = await editLine(user, input, async (tx, r) => {
+    await queueTimeBoxNotices(tx, r.timeBoxNotices);
     if (r.outcome !== "back_to_proposed") return;
     await queueLineReopened(tx, r.workOrderId, {
       description: r.line.description,
@@ -36,6 +39,8 @@ export const editLineAction = guardedAction({ roles: CAN.writeEstimates, input: 
     });
   });
   refresh(result.workOrderId);
+  // A diagnosis line's new size moves the moment its running clocks stop.
+  if (result.line.isDiagnosis) await scheduleTimeBoxWatch();
   return { outcome: result.outcome, reason: result.reason };
 });
 

@@ -8,3 +8,4 @@ export * from "./batch";
 export * from "./decide";
 export * from "./standing";
 export * from "./revise";
+export * from "./approve-fit";

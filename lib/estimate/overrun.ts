@@ -11,8 +11,12 @@ export interface OverrunPolicy {
   floorCents: Cents;
 }
 
-/** Default for a new account: 10 % capped at $50 (the shape of Florida Statutes 559.909(1)(b), without its $10 floor). */
-export const DEFAULT_OVERRUN_POLICY: Readonly<OverrunPolicy> = { percentMilli: 10_000, capCents: 5_000, floorCents: 0 };
+/**
+ * Default for a new account: the shape of Florida Statutes 559.909(1)(b), the greater of $10 or
+ * 10 %, never more than $50 (so an $80 line may grow by $10, a $300 line by $30, a $1,000 line by $50).
+ * db/schema.ts carries the same figures as the accounts table's column defaults.
+ */
+export const DEFAULT_OVERRUN_POLICY: Readonly<OverrunPolicy> = { percentMilli: 10_000, capCents: 5_000, floorCents: 1_000 };
 
 export function overrunPolicyOf(
   account: Pick<AccountSettings, "overrunPercentMilli" | "overrunCapCents" | "overrunFloorCents">,

@@ -25,6 +25,8 @@ export interface EstimateLine {
   /** The line amount at approval; what signing limits and budgets count. */
   approvedAmountCents: Cents | null;
   isDiagnosis: boolean;
+  /** A diagnosis extension line: the diagnosis line whose time box it extends. */
+  extendsLineId?: string | null;
 }
 
 export interface ShopSettings {

@@ -7,14 +7,14 @@ import { workOrderLabel } from "@/lib/domain";
 import { queueMail } from "@/lib/mail/queue";
 import { appUrl } from "@/lib/mail/send";
 import { lineAmountCents } from "@/lib/money";
-import { decisionsMadeMail, estimateReadyMail, lineReopenedMail, timeBoxReachedMail, type DecisionEvent } from "@/lib/mail/templates/estimate";
+import { decisionsMadeMail, estimateReadyMail, lineReopenedMail, type DecisionEvent } from "@/lib/mail/templates/estimate";
 
 /**
  * The estimate's e-mails. Each is queued inside the transaction of the change
  * it reports, reading through that transaction, so what it says is what was
  * committed.
  */
-type WoRef = Awaited<ReturnType<typeof workOrderForMail>>;
+export type WoRef = Awaited<ReturnType<typeof workOrderForMail>>;
 
 const fleetLink = (woId: string) => appUrl(`/fleet/work-orders/${woId}`);
 const shopLink = (woId: string) => appUrl(`/work-orders/${woId}`);
@@ -23,7 +23,7 @@ const shopLink = (woId: string) => appUrl(`/work-orders/${woId}`);
 export const DECISION_MAIL_WINDOW_MS = 2 * 60_000;
 
 /** The writer who opened the work order, or every writer when it was someone else. */
-async function writersFor(wo: WoRef, db: Reader): Promise<string[]> {
+export async function writersFor(wo: WoRef, db: Reader): Promise<string[]> {
   const own = await userEmail(wo.createdBy, db);
   const writers = await shopRecipients(["writer"], db);
   return own.length && writers.includes(own[0]!) ? own : writers;
@@ -63,11 +63,4 @@ export async function queueLineReopened(tx: Tx, workOrderId: string, line: { des
   const to = await accountRecipients(wo.accountId, ["approver"], tx);
   const mail = lineReopenedMail({ woLabel: workOrderLabel(wo.number), unitNumber: wo.unitNumber, ...line, url: fleetLink(wo.id) });
   await queueMail(tx, { to, template: "line_reopened", mail });
-}
-
-export async function queueTimeBoxReached(tx: Tx, workOrderId: string, description: string, approvedHours: string) {
-  const wo = await workOrderForMail(workOrderId, tx);
-  const base = { woLabel: workOrderLabel(wo.number), unitNumber: wo.unitNumber, description, approvedHours };
-  await queueMail(tx, { to: await writersFor(wo, tx), template: "time_box_reached", mail: timeBoxReachedMail({ ...base, url: shopLink(wo.id), forFleet: false }) });
-  await queueMail(tx, { to: await accountRecipients(wo.accountId, ["approver"], tx), template: "time_box_reached", mail: timeBoxReachedMail({ ...base, url: fleetLink(wo.id), forFleet: true }) });
 }

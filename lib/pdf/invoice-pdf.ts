@@ -3,7 +3,7 @@ import { LINE_KIND_LABELS, type LineKind } from "@/lib/domain";
 import { formatDate } from "@/lib/format";
 import { PAYMENT_STATE_LABELS, type PaymentState } from "@/lib/invoices/balance";
 import type { BillTo, ShopSnapshot, UnitSnapshot } from "@/lib/invoices/snapshot";
-import { formatQuantityOf, PAYMENT_METHOD_LABELS } from "@/lib/invoices/format";
+import { formatQuantityOf, formatUnitPriceOf, PAYMENT_METHOD_LABELS } from "@/lib/invoices/format";
 import { formatCents } from "@/lib/money";
 
 /** What the PDF shows; the invoice detail read satisfies it. */
@@ -140,7 +140,7 @@ export function renderInvoicePdf(inv: InvoiceDocument, timeZone: string): Promis
     if (core) doc.fontSize(7.5).fillColor(FAINT).text(core, COL.desc, doc.y, { width: COL.kind - COL.desc - 8 }).fontSize(9).fillColor(INK);
     doc.text(LINE_KIND_LABELS[line.kind], COL.kind, y, { width: COL.qty - COL.kind });
     doc.text(formatQuantityOf(line.quantityMilli, line.kind), COL.qty, y, { width: COL.price - COL.qty - 6, align: "right" });
-    doc.text(money(line.unitPriceCents), COL.price, y, { width: COL.amount - COL.price - 6, align: "right" });
+    doc.text(formatUnitPriceOf(line.unitPriceCents, line.kind), COL.price, y, { width: COL.amount - COL.price - 6, align: "right" });
     doc.text(money(line.amountCents), COL.amount, y, { width: RIGHT - COL.amount, align: "right" });
     y += height + 6;
   }

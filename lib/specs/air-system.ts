@@ -1,4 +1,4 @@
-import { ReadingInputError, formatNumber, requireNumber, toUnits, verdictForMaximum, verdictForMinimum } from "./exact";
+import { ReadingInputError, formatNumber, requireNumber, toUnits, verdictForLessThan, verdictForMaximum, verdictForMinimum } from "./exact";
 import type {
   AirBuildupInput,
   AirLeakInput,
@@ -38,14 +38,16 @@ export function checkAirLeak(input: AirLeakInput): ReadingResult {
   const limitValue = byState?.[input.vehicle];
   if (limitValue === undefined) throw new ReadingInputError("Choose brakes released or applied, single or combination");
   const who = input.vehicle === "single" ? "single vehicle" : "combination";
-  // The manual says "less than" for released and "more than … is too much" for applied;
-  // either way a loss exactly at the figure sits on the line, so at_limit.
+  // Released: "less than 2 psi/min", so exactly 2 is a figure that must not be reached (beyond).
+  // Applied: "more than 3 psi/min … is too much", so exactly 3 is allowed (at_limit).
+  const verdict =
+    input.brakes === "released" ? verdictForLessThan(psi(value), psi(limitValue)) : verdictForMaximum(psi(value), psi(limitValue));
   const limit =
     input.brakes === "released"
       ? `less than ${limitValue} psi/min (${who}, brakes released, engine off)`
       : `not more than ${limitValue} psi/min (${who}, brakes applied at 90 psi or more, engine off)`;
   return {
-    kind: "air_leak", value, unit: "psi/min", verdict: verdictForMaximum(psi(value), psi(limitValue)),
+    kind: "air_leak", value, unit: "psi/min", verdict,
     limit, limitValue, source: CDL_AIR_BRAKES_SOURCE, sourceKind: "published",
     note: "Let the system settle before timing one minute; listen for leaks at fittings, chambers and valves.",
   };

@@ -14,18 +14,17 @@ export const OCV_TABLE_80F: readonly { volts: number; percent: number }[] = [
 export const OCV_WITHIN_VOLTS_80F = 12.45;
 export const OCV_AT_LIMIT_VOLTS_80F = 12.24;
 
-/** −0.024 V per 10 °F below 80 °F = 2.4 µV per thousandth of a °F. */
+/** 0.024 V per 10 °F = 2.4 µV per thousandth of a °F, measured from 80 °F. */
 const REFERENCE_MILLI_F = 80_000;
 
 /**
- * The correction, in µV, for a battery at the given temperature. Direction, as
- * reference-values.md words it ("correct readings by −0.024 V per 10 °F below
- * 80 °F"): it is SUBTRACTED FROM THE READING before the 80 °F table is used, so a
- * cold battery is credited with less charge than its raw voltage suggests (the
- * cautious side). Above 80 °F no correction is applied (none is given).
+ * The correction, in µV, ADDED to a reading before the 80 °F table is used. A
+ * cold battery reads lower at the same charge (a full one reads about 12.53 V
+ * at 30 °F), so below 80 °F the reading is raised by about 0.024 V per 10 °F;
+ * above 80 °F it is lowered by the same rate (reference-values.md, batteries;
+ * the earlier wording there had the sign the wrong way round, and so did this).
  */
 export function ocvCorrectionMicroVolts(milliF: number): number {
-  if (milliF >= REFERENCE_MILLI_F) return 0;
   return Math.round(((REFERENCE_MILLI_F - milliF) * 24) / 10);
 }
 
@@ -58,12 +57,13 @@ export function checkBatteryOcv(input: BatteryOcvInput): ReadingResult {
   const unit = input.temperatureUnit ?? "F";
   const milliF = input.temperature === undefined ? REFERENCE_MILLI_F : toMilliFahrenheit(input.temperature, unit);
   const correction = ocvCorrectionMicroVolts(milliF);
-  const corrected = microVolts(value) - correction;
+  const corrected = microVolts(value) + correction;
   const verdict: Verdict =
     corrected >= microVolts(OCV_WITHIN_VOLTS_80F) ? "within"
       : corrected >= microVolts(OCV_AT_LIMIT_VOLTS_80F) ? "at_limit" : "beyond";
-  const withinRaw = (microVolts(OCV_WITHIN_VOLTS_80F) + correction) / 1e6;
-  const atLimitRaw = (microVolts(OCV_AT_LIMIT_VOLTS_80F) + correction) / 1e6;
+  // The same bands as raw readings at this temperature.
+  const withinRaw = (microVolts(OCV_WITHIN_VOLTS_80F) - correction) / 1e6;
+  const atLimitRaw = (microVolts(OCV_AT_LIMIT_VOLTS_80F) - correction) / 1e6;
   const where = input.temperature === undefined ? "80 °F assumed (no temperature entered)" : `at ${formatTemperature(input.temperature, unit)}`;
   return {
     kind: "battery_ocv", value, unit: "V", verdict,

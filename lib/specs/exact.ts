@@ -35,6 +35,11 @@ export function verdictForMaximum(value: number, limit: number): Verdict {
   return value === limit ? "at_limit" : "beyond";
 }
 
+/** For a "less than" limit (a figure that must not be reached): equal is beyond, there is no at_limit. */
+export function verdictForLessThan(value: number, limit: number): Verdict {
+  return value < limit ? "within" : "beyond";
+}
+
 /** For an "at least" limit: equal is allowed (at_limit), less is beyond. */
 export function verdictForMinimum(value: number, limit: number): Verdict {
   if (value > limit) return "within";

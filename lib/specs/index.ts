@@ -5,7 +5,7 @@ import { checkKeyOffDrain } from "./drain";
 import { ReadingInputError } from "./exact";
 import { checkAnnualInspection } from "./inspection";
 import { checkTreadDepth } from "./tread";
-import type { ReadingInput, ReadingResult } from "./types";
+import type { ReadingInput, ReadingResult, SourceKind } from "./types";
 
 export * from "./types";
 export { READING_KINDS } from "./reading-kinds";
@@ -18,6 +18,19 @@ export { mmToThirtySeconds, thirtySecondsToMm, TREAD_MINIMUM_32NDS } from "./tre
 export { stateOfChargePercent, loadTestMinimum } from "./battery";
 export { annualInspectionDueDate } from "./inspection";
 export { AMMETER_CAUTION, DEFAULT_DRAIN_WARNING_MA } from "./drain";
+
+const SOURCE_KIND_WORDS: Record<SourceKind, string> = {
+  published: "published",
+  common_practice: "common practice",
+  from_memory: "from memory",
+};
+
+/** "Source (kind)", naming the kind once: many sources already say "common practice" in their own words. */
+export function sourceLine(source: string, sourceKind: string): string {
+  const words = SOURCE_KIND_WORDS[sourceKind as SourceKind];
+  if (!words || source.toLowerCase().includes(words)) return source;
+  return `${source} (${words})`;
+}
 
 /** The one-line caution every page showing a verdict carries. */
 export const READING_CAUTION =

@@ -27,7 +27,7 @@ describe("estimate → decisions, across the shop and the fleet", () => {
     const shop = await newContext(browser, DESKTOP);
     const writer = await shop.newPage();
     await signIn(writer, "writer@quarry-road.example");
-    await writer.getByTestId("floor-card").filter({ hasText: "No-start after cold nights" }).click();
+    await writer.getByTestId("floor-card").filter({ hasText: "T-9" }).filter({ hasText: "No-start" }).click();
     await writer.getByRole("heading", { name: /T-9/ }).waitFor();
     const workOrderUrl = writer.url();
 

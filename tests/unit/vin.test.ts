@@ -73,6 +73,21 @@ describe("validateVin — refusals with plain-English reasons", () => {
     if (!result.ok) expect(result.message).toContain("position 10");
   });
 
+  it("refuses any character outside 0–9 and A–Z before changing case (ß, ﬀ, ſ, full-width letters)", () => {
+    // A valid VIN with SS, FF and S in it (check digit by 49 CFR 565.15(c)), typed with look-alikes
+    // that upper-case into those letters: a 16-character entry must not pass as a 17-character VIN.
+    const vin = withCheckDigit("1FUSSGDR0CFFA1234");
+    expect(validateVin(vin)).toEqual({ ok: true, vin });
+    const forged = [vin.replace("SS", "ß"), vin.replace("FF", "\ufb00"), vin.replace("S", "\u017f"), vin.replace("A", "\uff21")];
+    for (const entry of forged) {
+      const result = validateVin(entry);
+      expect(result, entry).toMatchObject({ ok: false, reason: "characters" });
+      if (!result.ok) expect(result.message).toMatch(/only the letters A–Z and the digits 0–9/);
+    }
+    const sharp = validateVin(forged[0]!);
+    if (!sharp.ok) expect(sharp.message).toContain('found "ß" at position 4');
+  });
+
   it("refuses 16 and 18 characters, saying how many were found", () => {
     const short = validateVin("1G4AH59H45G11834");
     const long = validateVin("1G4AH59H45G1183411");
@@ -116,6 +131,12 @@ describe("normalizeVin", () => {
     expect(normalizeVin("  1g4ah59h45g118341 ")).toBe("1G4AH59H45G118341");
     expect(normalizeVin("1M8-GDM9A-XKP 042788")).toBe("1M8GDM9AXKP042788");
     expect(normalizeVin("1m8\u2013gdm9a xkp\t042788")).toBe("1M8GDM9AXKP042788");
+  });
+
+  it("changes the case of a–z only, so no other letter can turn into VIN letters", () => {
+    // "ß".toUpperCase() is "SS", "ﬀ" is "FF", "ſ" (long s) is "S": each would forge VIN letters.
+    expect(normalizeVin("1g4ßa")).toBe("1G4ßA");
+    expect(normalizeVin("ﬀſ")).toBe("ﬀſ");
   });
 
   it("lets validateVin accept lowercase and dashed entry of a valid VIN", () => {

@@ -1,7 +1,7 @@
 "use client";
 
 import { useRef, useState } from "react";
-import { CameraIcon, UploadProblems, UploadProgress, contentRefusal, type InFlight } from "@/components/photos/upload-parts";
+import { CameraIcon, UploadProblems, UploadProgress, contentRefusal, progressed, type InFlight } from "@/components/photos/upload-parts";
 import { buttonClass } from "@/components/ui/button";
 import type { PhotoUploadResult } from "@/lib/uploads/store-photo";
 import { ACCEPTED_WORDS, PHOTO_ACCEPT, PHOTOS_PER_FINDING, refusalFor } from "@/lib/uploads/photo-rules";
@@ -39,15 +39,16 @@ export function PhotoPicker({ workOrderId, photos, onChange }: { workOrderId: st
     }
     setProblems(reasons);
     if (!good.length) return;
-    const batch = good.map((f, i) => ({ key: `${Date.now()}-${i}-${f.name}`, name: f.name, percent: 0 }));
+    const batch: InFlight[] = good.map((f, i) => ({ key: `${Date.now()}-${i}-${f.name}`, name: f.name, phase: "preparing", percent: 0 }));
     setInFlight((now) => [...now, ...batch]);
     const keyOf = new Map(good.map((f, i) => [f, batch[i]?.key ?? ""]));
     try {
       const results = await uploadFiles("findingPhotos", {
         files: good,
         input: { workOrderId, attached: photos.length + inFlight.length },
-        onUploadProgress: ({ file, progress }) =>
-          setInFlight((now) => now.map((u) => (u.key === keyOf.get(file) ? { ...u, percent: Math.round(progress) } : u))),
+        onUploadBegin: ({ file }) =>
+          setInFlight((now) => now.map((u) => (batch.some((b) => b.key === u.key) && u.name === file && u.phase === "preparing" ? { ...u, phase: "sending" } : u))),
+        onUploadProgress: ({ file, progress }) => setInFlight((now) => now.map((u) => (u.key === keyOf.get(file) ? progressed(u, progress) : u))),
       });
       const added: UploadedPhoto[] = [];
       const refused: string[] = [];

@@ -72,23 +72,80 @@ export function lineReopenedMail(p: {
   });
 }
 
-export function timeBoxReachedMail(p: {
+/** The diagnosis time box at 80 % (warn) or full (reached: the clock stopped by itself). */
+export function timeBoxMail(p: {
+  kind: "warn" | "reached";
   woLabel: string;
   unitNumber: string;
   description: string;
-  approvedHours: string;
+  /** "1 h 36 min" */
+  used: string;
+  /** "2.0 h" */
+  approved: string;
   url: string;
-  forFleet: boolean;
+  reader: "tech" | "writer" | "fleet";
+}): RenderedMail {
+  const reached = p.kind === "reached";
+  const next = {
+    tech: reached ? "Clocking in on it waits until the customer approves more time; tell the writer what you still need to check." : "Tell the writer now if you need more time, so it can be asked for before the clock stops.",
+    writer: reached ? "Ask the customer for more hours from the work order if more diagnosis is needed." : "If more time is needed, ask the customer for it from the work order before the clock stops.",
+    fleet: "If the shop needs more time to find the fault, you will be asked to approve it.",
+  }[p.reader];
+  return renderMail({
+    subject: `${p.woLabel} · ${p.unitNumber}: ${reached ? "diagnosis time used up, the clock stopped" : "80 % of the diagnosis time used"}`,
+    heading: reached ? `Diagnosis time on ${p.unitNumber} is used up` : `Diagnosis time on ${p.unitNumber} is 80 % used`,
+    paragraphs: [
+      reached
+        ? `All ${p.approved} approved for “${p.description}” have been clocked (${p.used}). The clock stopped by itself at the time box; every minute clocked is kept.`
+        : `${p.used} of the ${p.approved} approved for “${p.description}” have been clocked. The clock stops by itself when the time box is full.`,
+      next,
+    ],
+    action: { label: p.reader === "fleet" ? "See the work order" : "Open the work order", url: p.url },
+  });
+}
+
+/** The shop asks the customer for more diagnosis hours: a new line waiting on their decision. */
+export function timeBoxExtensionMail(p: {
+  woLabel: string;
+  unitNumber: string;
+  description: string;
+  more: string;
+  used: string;
+  approved: string;
+  amountCents: number;
+  note: string;
+  url: string;
 }): RenderedMail {
   return renderMail({
-    subject: `${p.woLabel} · ${p.unitNumber}: diagnosis time used up`,
-    heading: `Diagnosis time on ${p.unitNumber} is used up`,
+    subject: `${p.woLabel} · ${p.unitNumber}: the shop asks for ${p.more} more diagnosis time`,
+    heading: `More diagnosis time asked for on ${p.unitNumber}`,
     paragraphs: [
-      `The ${p.approvedHours} approved for “${p.description}” have been used. The technician has stopped the clock on diagnosis.`,
-      p.forFleet
-        ? "If you want the shop to keep looking, approve an extension when the shop sends one."
-        : "Send the customer an extension line if more diagnosis is needed.",
+      `The technician has clocked ${p.used} of the ${p.approved} you approved for “${p.description}”. The shop asks for ${p.more} more (${formatCents(p.amountCents)}).`,
+      ...(p.note ? [`The shop says: ${p.note}`] : []),
+      "Approve, decline or hold the extension like any other line. Until it is approved the technician's clock stays stopped.",
     ],
-    action: { label: p.forFleet ? "See the work order" : "Open the work order", url: p.url },
+    action: { label: "Decide on the extension", url: p.url },
+  });
+}
+
+/** An approver passes lines past their own signing limit to a colleague who can sign for them. */
+export function passedOnMail(p: {
+  woLabel: string;
+  unitNumber: string;
+  from: string;
+  note: string;
+  lines: { description: string; amountCents: number; url: string }[];
+  url: string;
+}): RenderedMail {
+  const total = p.lines.reduce((s, l) => s + l.amountCents, 0);
+  return renderMail({
+    subject: `${p.woLabel} · ${p.unitNumber}: ${p.from} passed ${p.lines.length} line${p.lines.length === 1 ? "" : "s"} to you to decide`,
+    heading: `${p.from} asks you to decide on ${p.unitNumber}`,
+    paragraphs: [
+      `These ${p.lines.length === 1 ? "line is" : "lines are"} past ${p.from}'s signing limit (${formatCents(total)} in all):`,
+      ...p.lines.map((l) => `• ${l.description}: ${formatCents(l.amountCents)} — ${l.url}`),
+      ...(p.note ? [`${p.from} says: ${p.note}`] : []),
+    ],
+    action: { label: "Decide on these lines", url: p.url },
   });
 }

@@ -49,10 +49,18 @@ describe("overrun allowance shapes, each named with its statute", () => {
     expect(checkOverrun({ approvedCents: 10_000, revisedCents: 10_000, policy: CALIFORNIA_9884_9 }).ok).toBe(true);
   });
 
-  it("default for a new account: 10 % capped at $50, floor 0 (reference-values.md)", () => {
-    expect(DEFAULT_OVERRUN_POLICY).toEqual({ percentMilli: 10_000, capCents: 5_000, floorCents: 0 });
-    expect(overrunAllowanceCents(5_000, DEFAULT_OVERRUN_POLICY)).toBe(500);
-    expect(overrunAllowanceCents(100_000, DEFAULT_OVERRUN_POLICY)).toBe(5_000);
+  it("default for a new account: the Florida shape with its floor — the greater of $10 or 10 %, never more than $50 (reference-values.md)", () => {
+    expect(DEFAULT_OVERRUN_POLICY).toEqual(FLORIDA_559_909);
+    expect(overrunAllowanceCents(8_000, DEFAULT_OVERRUN_POLICY)).toBe(1_000); // $80 line → $10 (10 % would be $8)
+    expect(overrunAllowanceCents(30_000, DEFAULT_OVERRUN_POLICY)).toBe(3_000); // $300 line → $30
+    expect(overrunAllowanceCents(100_000, DEFAULT_OVERRUN_POLICY)).toBe(5_000); // $1,000 line → $50 cap
+  });
+
+  it("the default is not Michigan's shape (the lesser of $10 or 10 %) nor California's (nothing without consent)", () => {
+    expect(overrunAllowanceCents(8_000, MICHIGAN_1974_PA_300)).toBe(800);
+    expect(overrunAllowanceCents(30_000, MICHIGAN_1974_PA_300)).toBe(1_000);
+    expect(overrunAllowanceCents(8_000, CALIFORNIA_9884_9)).toBe(0);
+    expect(DEFAULT_OVERRUN_POLICY).not.toEqual(MICHIGAN_1974_PA_300);
   });
 });
 

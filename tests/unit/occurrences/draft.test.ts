@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { draftFieldOf, draftHasContent, draftToBody, emptyDraft, parseTyped, restoreDraft, toggleSign } from "@/lib/occurrences/draft";
-import { T9_NO_START } from "@/db/seed/occurrences";
+import { t9NoStart } from "@/db/seed/occurrences";
 import { summarizePattern } from "@/lib/occurrences/pattern";
 import { celsiusFromFahrenheit } from "@/lib/occurrences/temperature";
 import { makeOccurrenceInput } from "@/lib/validation/occurrence";
@@ -93,15 +93,24 @@ describe("the entry's photo in the draft (issue 6: an optional photo, kept with 
   });
 });
 
-describe("the demo season reads as the cold-soak pattern it was written to show", () => {
-  it("T-9: 14 of 15 after more than 10 h parked, 14 of 15 below 25 °F (hand-counted from db/seed/occurrences.ts)", () => {
-    const points = T9_NO_START.map((o) => ({
-      occurredAt: new Date(NOW - o.daysAgo * 86_400_000).toISOString(),
+describe("the demo season reads as the pattern it was written to show", () => {
+  const pointsAt = (now: number) =>
+    t9NoStart({ now: new Date(now), ids: new Map(), milestones: new Map(), db: null as never }).map((o) => ({
+      occurredAt: new Date(now - o.daysAgo * 86_400_000).toISOString(),
       hoursParked: o.hoursParked,
       ambientC: o.tempF === null ? null : celsiusFromFahrenheit(o.tempF),
       batteryVolts: o.volts,
       recovered: o.recovered,
     }));
-    expect(summarizePattern(points, { now: NOW }).headline).toBe("14 of 15 after more than 10 h parked, 14 of 15 below 25 °F");
+
+  it("T-9 in January: the soaks and a cold season's mornings (temperatures follow the demo town's season)", () => {
+    expect(summarizePattern(pointsAt(NOW), { now: NOW }).headline).toBe("14 of 15 after more than 10 h parked, 12 of 15 below 30 °F");
+  });
+
+  it("T-9 in July: the same soaks, summer mornings — no cold-weather pattern claimed", () => {
+    const july = Date.parse("2026-07-20T12:30:00Z");
+    const summary = summarizePattern(pointsAt(july), { now: july });
+    expect(summary.headline).toBe("14 of 15 after more than 10 h parked, all below 60 °F");
+    expect(summary.temperature.coldest).toBeGreaterThanOrEqual(30);
   });
 });

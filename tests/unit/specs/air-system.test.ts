@@ -10,12 +10,20 @@ describe(`air leakage — ${CDL} (final air brake check)`, () => {
   it.each([
     ["released", "single", 2],
     ["released", "combination", 3],
+  ] as const)(`${CDL}: brakes %s, %s vehicle — "less than" %d psi/min: that figure itself is beyond`, (brakes, vehicle, limit) => {
+    const at = leak(brakes, vehicle, limit);
+    expect(at).toMatchObject({ verdict: "beyond", limitValue: limit, unit: "psi/min", sourceKind: "published" });
+    expect(at.source).toContain(CDL);
+    expect(leak(brakes, vehicle, limit - 0.5).verdict).toBe("within");
+    expect(leak(brakes, vehicle, limit + 0.5).verdict).toBe("beyond");
+  });
+
+  it.each([
     ["applied", "single", 3],
     ["applied", "combination", 4],
-  ] as const)(`${CDL}: brakes %s, %s vehicle — limit %d psi/min`, (brakes, vehicle, limit) => {
+  ] as const)(`${CDL}: brakes %s, %s vehicle — "more than" %d psi/min is too much: that figure itself is at limit`, (brakes, vehicle, limit) => {
     const at = leak(brakes, vehicle, limit);
     expect(at).toMatchObject({ verdict: "at_limit", limitValue: limit, unit: "psi/min", sourceKind: "published" });
-    expect(at.source).toContain(CDL);
     expect(leak(brakes, vehicle, limit - 0.5).verdict).toBe("within");
     expect(leak(brakes, vehicle, limit + 0.5).verdict).toBe("beyond");
   });

@@ -52,38 +52,38 @@ describe("open-circuit voltage verdict (≥ 75 % within, 50–75 % at_limit, bel
   });
 });
 
-describe(`temperature correction — ${BCI}: −0.024 V per 10 °F below 80 °F, subtracted from the reading`, () => {
-  it(`${BCI}: at 30 °F a 12.57 V reading corrects to 12.45 V (75 %, within); the raw limit shown is 12.57 V`, () => {
-    const r = checkReading({ kind: "battery_ocv", value: 12.57, temperature: 30 });
+describe(`temperature correction — ${BCI}: a cold battery reads low, so +0.024 V per 10 °F below 80 °F (− above) before the look-up`, () => {
+  it(`${BCI}: at 30 °F a 12.33 V reading corrects to 12.45 V (75 %, within); the raw limit shown is 12.33 V`, () => {
+    const r = checkReading({ kind: "battery_ocv", value: 12.33, temperature: 30 });
     expect(r.verdict).toBe("within");
     expect(r.derived?.value).toBeCloseTo(75, 5);
-    expect(r.limitValue).toBeCloseTo(12.57, 6);
+    expect(r.limitValue).toBeCloseTo(12.33, 6);
     expect(r.note).toContain("Corrected to 80 °F: 12.45 V");
   });
 
-  it(`${BCI}: the same 12.5 V reads within at 80 °F but at_limit at 30 °F (cold credits less charge)`, () => {
-    expect(checkReading({ kind: "battery_ocv", value: 12.5, temperature: 80 }).verdict).toBe("within");
-    expect(checkReading({ kind: "battery_ocv", value: 12.5, temperature: 30 }).verdict).toBe("at_limit");
+  it(`${BCI}: the same 12.35 V reads at_limit at 80 °F but within at 30 °F (a cold battery reads low)`, () => {
+    expect(checkReading({ kind: "battery_ocv", value: 12.35, temperature: 80 }).verdict).toBe("at_limit");
+    expect(checkReading({ kind: "battery_ocv", value: 12.35, temperature: 30 }).verdict).toBe("within");
   });
 
-  it(`${BCI}: 0.024 V per 10 °F is 0.0024 V per °F — at 70 °F, 12.474 V corrects to 12.45 V exactly`, () => {
-    expect(checkReading({ kind: "battery_ocv", value: 12.474, temperature: 70 }).verdict).toBe("within");
-    expect(checkReading({ kind: "battery_ocv", value: 12.473, temperature: 70 }).verdict).toBe("at_limit");
+  it(`${BCI}: 0.024 V per 10 °F is 0.0024 V per °F — at 70 °F, 12.426 V corrects to 12.45 V exactly`, () => {
+    expect(checkReading({ kind: "battery_ocv", value: 12.426, temperature: 70 }).verdict).toBe("within");
+    expect(checkReading({ kind: "battery_ocv", value: 12.425, temperature: 70 }).verdict).toBe("at_limit");
   });
 
-  it("no correction above 80 °F (none is given)", () => {
+  it(`${BCI}: above 80 °F the same rate is subtracted (at 100 °F the 75 % line is 12.498 V)`, () => {
     const r = checkReading({ kind: "battery_ocv", value: 12.45, temperature: 100 });
-    expect(r.verdict).toBe("within");
-    expect(r.limitValue).toBeCloseTo(12.45, 6);
+    expect(r.verdict).toBe("at_limit");
+    expect(r.limitValue).toBeCloseTo(12.498, 6);
   });
 
   it("°C converts exactly (F = C × 9/5 + 32): 10 °C = 50 °F, −40 °C = −40 °F", () => {
     expect(celsiusToFahrenheit(10)).toBe(50);
     expect(celsiusToFahrenheit(-40)).toBe(-40);
     expect(celsiusToFahrenheit(26.6)).toBeCloseTo(79.88, 10);
-    // 10 °C = 50 °F: correction 3 × 0.024 = 0.072 V; 12.522 V corrects to 12.45 V exactly
-    expect(checkReading({ kind: "battery_ocv", value: 12.522, temperature: 10, temperatureUnit: "C" }).verdict).toBe("within");
-    expect(checkReading({ kind: "battery_ocv", value: 12.521, temperature: 10, temperatureUnit: "C" }).verdict).toBe("at_limit");
+    // 10 °C = 50 °F: correction 3 × 0.024 = +0.072 V; 12.378 V corrects to 12.45 V exactly
+    expect(checkReading({ kind: "battery_ocv", value: 12.378, temperature: 10, temperatureUnit: "C" }).verdict).toBe("within");
+    expect(checkReading({ kind: "battery_ocv", value: 12.377, temperature: 10, temperatureUnit: "C" }).verdict).toBe("at_limit");
   });
 });
 

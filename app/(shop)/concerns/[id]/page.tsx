@@ -21,7 +21,7 @@ export default async function ConcernPage({ params }: { params: Promise<{ id: st
   return (
     <>
       <PageHeader title={concern.complaint} kicker={`Occurrence log · ${concern.unitNumber} · ${concern.accountName}`} />
-      <p className="-mt-3 mb-4 flex flex-wrap gap-x-4 text-sm">
+      <p className="-mt-3 mb-4 flex flex-wrap items-center gap-x-4 text-sm [&>a]:inline-flex [&>a]:min-h-touch [&>a]:items-center">
         <Link href={`/units/${concern.unitId}`}>
           Unit {concern.unitNumber} · {concern.unitDescription}
         </Link>

@@ -57,7 +57,13 @@ export default async function ShopWorkOrderPage({ params }: { params: Promise<{ 
             ) : null}
             <Card>
               <CardTitle>Time and progress</CardTitle>
-              <TimeClock workOrderId={view.id} lines={page.clockLines} />
+              <TimeClock
+                workOrderId={view.id}
+                lines={page.clockLines}
+                userId={user.id}
+                renderedAt={page.renderedAt}
+                canAskForMore={view.status !== "released" && canPrice}
+              />
             </Card>
             <Card>
               <CardTitle>Timeline</CardTitle>

@@ -5,7 +5,7 @@ import { estimateLines } from "@/db/schema";
 import { CAN } from "@/lib/auth/policy";
 import { apiRoute, idParams } from "@/lib/http/api-route";
 import { lineAmountCents } from "@/lib/money";
-import { decisionNotice } from "@/lib/notifications/decisions";
+import { afterDecision, decisionNotice } from "@/lib/notifications/decisions";
 import { decisionBody } from "@/lib/validation/estimate-line";
 
 export const dynamic = "force-dynamic";
@@ -14,6 +14,7 @@ export const dynamic = "force-dynamic";
 export const POST = apiRoute({ roles: CAN.decide, params: idParams, body: decisionBody }, async ({ user, params, body }) => {
   const workOrderId = await workOrderOfLine(user, params.id);
   const { result, at } = await decide(user, workOrderId, [{ lineId: params.id, ...body }], decisionNotice(user));
+  await afterDecision(result);
   const [row] = await getDb().select().from(estimateLines).where(eq(estimateLines.id, params.id)).limit(1);
   const change = result.changes[0]!;
   return {
