@@ -1,0 +1,65 @@
+"use client";
+
+import { useState } from "react";
+import { Field, FormMessage, inputClass } from "@/components/forms/field";
+import { useGuardedForm } from "@/components/forms/use-guarded-form";
+import { Button } from "@/components/ui/button";
+import { inviteAction } from "@/lib/actions/people";
+import { FLEET_ROLES, ROLE_LABELS, ROLES, isShopRole, type Role } from "@/lib/domain";
+import { formatDateTime } from "@/lib/format";
+
+/**
+ * Invites a person by e-mail; they choose their own password from the link.
+ * With `accountId` set (an account's page) only fleet roles are offered.
+ */
+export function InviteForm({ accounts, accountId, roles }: { accounts?: { id: string; name: string }[]; accountId?: string; roles?: readonly Role[] }) {
+  const offered = roles ?? (accountId ? FLEET_ROLES : ROLES);
+  const [state, action, pending, formRef] = useGuardedForm(inviteAction);
+  const [role, setRole] = useState<Role>(offered[0] ?? "approver");
+  const errors = state && !state.ok ? (state.fieldErrors ?? {}) : {};
+  return (
+    <form ref={formRef} action={action} className="grid gap-3 md:grid-cols-2" data-testid="invite-form">
+      <Field label="Name" name="name" autoComplete="off" error={errors.name} />
+      <Field label="E-mail" name="email" type="email" autoComplete="off" error={errors.email} />
+      <label className="flex flex-col gap-1">
+        <span className="font-semibold">Role</span>
+        <select name="role" value={role} onChange={(e) => setRole(e.target.value as Role)} className={inputClass}>
+          {offered.map((r) => (
+            <option key={r} value={r}>
+              {ROLE_LABELS[r]}
+            </option>
+          ))}
+        </select>
+      </label>
+      {isShopRole(role) ? null : accountId ? (
+        <input type="hidden" name="accountId" value={accountId} />
+      ) : (
+        <label className="flex flex-col gap-1">
+          <span className="font-semibold">Fleet account</span>
+          <select name="accountId" className={inputClass} aria-invalid={errors.accountId ? true : undefined}>
+            {(accounts ?? []).map((a) => (
+              <option key={a.id} value={a.id}>
+                {a.name}
+              </option>
+            ))}
+          </select>
+          {errors.accountId ? <span className="text-sm font-semibold text-rust-deep">{errors.accountId}</span> : null}
+        </label>
+      )}
+      {role === "approver" ? (
+        <Field label="Signing limit ($ per work order)" name="signingLimit" inputMode="decimal" error={errors.signingLimit} hint="The most this person may approve on one work order." />
+      ) : null}
+      <div className="md:col-span-2">
+        <FormMessage result={state} />
+        {state?.ok ? (
+          <p role="status" className="font-semibold">
+            Invitation sent to {state.data.email}. The link works once, until {formatDateTime(state.data.expiresAt)}.
+          </p>
+        ) : null}
+        <Button type="submit" disabled={pending} className="mt-2">
+          {pending ? "Sending…" : "Send invitation"}
+        </Button>
+      </div>
+    </form>
+  );
+}
