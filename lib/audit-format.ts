@@ -24,6 +24,18 @@ const LABELS: Record<string, string> = {
   contacts: "Contacts",
   role: "Role",
   active: "Signs in",
+  unitsImported: "Units imported from a CSV file",
+  unitNumber: "Unit number",
+  vin: "VIN",
+  serialOnly: "No VIN, serial only",
+  serialNumber: "Serial number",
+  year: "Year",
+  description: "Description",
+  plate: "Plate",
+  lastInspectionOn: "Last annual inspection",
+  inspectionBasis: "Inspection basis",
+  keyOffDrainLimitMa: "Accepted key-off drain (mA)",
+  retired: "Retired",
 };
 
 const MONTHS = ["January", "February", "March", "April", "May", "June", "July", "August", "September", "October", "November", "December"];
@@ -41,7 +53,8 @@ function show(field: string, value: unknown): string {
 export function describeChange(detail: unknown): string[] {
   if (!detail || typeof detail !== "object") return [];
   const out: string[] = [];
-  const who = "approver" in detail ? (detail as { approver: unknown }).approver : "person" in detail ? (detail as { person: unknown }).person : null;
+  const d = detail as Record<string, unknown>;
+  const who = d.approver ?? d.person ?? (d.unit ? `Unit ${String(d.unit)}` : null);
   const prefix = who ? `${String(who)}: ` : "";
   for (const [field, change] of Object.entries(detail)) {
     if (!change || typeof change !== "object" || !("from" in change)) continue;
