@@ -74,7 +74,7 @@ describe("adding a unit: VIN check digit by 49 CFR 565.15(c)", () => {
 
   it("keeps readings, the inspection basis and due date (49 CFR 396.17(c) and (f)), and the accepted drain figure", async () => {
     const kettle = await accountId("Kettle Ridge Stone Co.");
-    const periodic = await call<UnitRow>(addUnit, {
+    const periodic = await call(addUnit, {
       path: "/api/v1/units",
       as: WRITER,
       body: { accountId: kettle, unitNumber: "Water 2", vin: "11111111111111111".replace(/^1/, "2").replace(/^(.{8})./, "$1X"), description: "Water truck", odometer: 48_200, engineHours: 2_210, lastInspectionOn: "2025-03-14", inspectionBasis: "periodic", keyOffDrainLimitMa: 180 },
