@@ -119,8 +119,10 @@ export async function getUnitDetail(user: SessionUser, id: string) {
       accountId: units.accountId,
       accountName: accounts.name,
       lastInspectionOn: units.lastInspectionOn,
+      inspectionBasis: units.inspectionBasis,
       inspectionDueOn: units.inspectionDueOn,
       keyOffDrainLimitMa: units.keyOffDrainLimitMa,
+      retiredAt: units.retiredAt,
       updatedAt: units.updatedAt,
     })
     .from(units)
