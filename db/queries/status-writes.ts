@@ -1,6 +1,6 @@
-import { eq } from "drizzle-orm";
+import { and, eq } from "drizzle-orm";
 import { writeTx } from "@/db/client";
-import { statusEvents, workOrders } from "@/db/schema";
+import { serviceRequests, statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { STATUS_LABELS, workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
 import { formatDate } from "@/lib/format";
@@ -43,6 +43,15 @@ export async function moveStatus(user: SessionUser, workOrderId: string, move: {
       .values({ workOrderId: wo.id, status: move.status, note: move.note, byUserId: user.id, at })
       .returning({ id: statusEvents.id, status: statusEvents.status, note: statusEvents.note, at: statusEvents.at });
     if (!event) throw new Error("status event insert returned nothing");
+    // A driver's defect report on this visit reads "fixed" once the unit is ready (or released).
+    const fixed =
+      move.status === "ready" || released
+        ? await tx
+            .update(serviceRequests)
+            .set({ status: "closed", closedAt: at, updatedAt: at })
+            .where(and(eq(serviceRequests.workOrderId, wo.id), eq(serviceRequests.status, "scheduled")))
+            .returning({ id: serviceRequests.id })
+        : [];
     await recordAudit(tx, user, {
       action: "work_order.status",
       entityType: "work_order",
@@ -65,6 +74,7 @@ export async function moveStatus(user: SessionUser, workOrderId: string, move: {
         event: { ...event, by: user.name },
       },
       becameReady: move.status === "ready" && wo.status !== "ready",
+      fixedRequestIds: fixed.map((r) => r.id),
     };
   });
 }
