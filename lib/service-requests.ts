@@ -24,3 +24,8 @@ export const DVIR_AREAS = [
 export const OTHER_AREA = "Other";
 export const DEFECT_AREAS = [...DVIR_AREAS, OTHER_AREA] as const;
 export type DefectArea = (typeof DEFECT_AREAS)[number];
+
+/** A defect from a driver's report, as the visit's complaint: in the reporter's words, with who reported it. */
+export function defectComplaint(d: { area: string; description: string; outOfService: boolean }, reporter: string): string {
+  return `${d.area ? `${d.area}: ` : ""}${d.description} (reported by ${reporter}${d.outOfService ? ", out of service" : ""})`;
+}

@@ -7,6 +7,7 @@ import { formatDateTime } from "@/lib/format";
 import { HttpError, conflict, invalidInput, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
 import { checkMeterReading } from "@/lib/meters";
+import { defectComplaint } from "@/lib/service-requests";
 import type { CheckInInput } from "@/lib/validation/visit";
 import { recordAudit } from "./audit";
 import { copyDeferredLines } from "./estimate-lines";
@@ -49,16 +50,12 @@ async function record(tx: Tx, user: SessionUser, unitId: string, workOrderId: st
   await tx.insert(meterReadings).values({ unitId, workOrderId, kind, value, readAt: nowIso(), recordedBy: user.id, note: "At check-in" });
 }
 
-/** A defect from a driver's report, as the visit's complaint. */
-function defectComplaint(d: { area: string; description: string; outOfService: boolean }, reporter: string): string {
-  return `${d.area ? `${d.area}: ` : ""}${d.description} (reported by ${reporter}${d.outOfService ? ", out of service" : ""})`;
-}
 
 /**
  * Check-in: opens a work order on a unit with its complaints, readings,
  * technician, promised-by time, PO number and any deferred work brought back;
- * a defect report checked in this way becomes the visit's concerns and is
- * marked scheduled. One open work order per unit: the check below runs inside
+ * a defect report checked in this way becomes the visit's concerns (its
+ * defects, unless the writer sent their own wording) and is marked scheduled. One open work order per unit: the check below runs inside
  * the write transaction, and the partial unique index
  * work_orders_one_open_per_unit backs it across processes.
  */
@@ -86,10 +83,10 @@ export async function checkIn(user: SessionUser, input: CheckInInput) {
         const [sr] = await tx.select().from(serviceRequests).where(eq(serviceRequests.id, input.serviceRequestId)).limit(1);
         if (!sr || sr.unitId !== unit.id) throw invalidInput([{ path: "serviceRequestId", message: "That defect report is not for this unit." }]);
         if (sr.status !== "open") throw conflict("report_scheduled", "That defect report is already on a visit.");
-        const defects = await tx.select().from(serviceRequestDefects).where(eq(serviceRequestDefects.requestId, sr.id)).orderBy(asc(serviceRequestDefects.position));
-        for (const d of defects) {
-          const text = defectComplaint(d, sr.reporterName);
-          if (!complaints.some((c) => c === text || c === d.description)) complaints.push(text);
+        // Complaints sent with the report are the writer's own wording of it; without any, its defects are the concerns.
+        if (complaints.length === 0) {
+          const defects = await tx.select().from(serviceRequestDefects).where(eq(serviceRequestDefects.requestId, sr.id)).orderBy(asc(serviceRequestDefects.position));
+          complaints.push(...defects.map((d) => defectComplaint(d, sr.reporterName)));
         }
         request = sr;
       }

@@ -1,4 +1,4 @@
-import { asc, eq } from "drizzle-orm";
+import { and, asc, eq, isNull } from "drizzle-orm";
 import { getDb, writeTx } from "@/db/client";
 import { accounts, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -61,4 +61,14 @@ export async function setPersonActive(user: SessionUser, userId: string, active:
       detail: { person: row.name, active: { from: !active, to: active } },
     });
   });
+}
+
+/** Shop staff who can be given a visit (technicians first), for the technician pickers. */
+export async function assignableStaff() {
+  const rows = await getDb()
+    .select({ id: users.id, name: users.name, role: users.role })
+    .from(users)
+    .where(and(isNull(users.accountId), eq(users.active, true)))
+    .orderBy(asc(users.name));
+  return [...rows.filter((r) => r.role === "tech"), ...rows.filter((r) => r.role !== "tech")];
 }

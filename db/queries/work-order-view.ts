@@ -47,6 +47,7 @@ export async function workOrderView(user: SessionUser, id: string) {
     unitDescription: wo.unitDescription,
     accountName: wo.accountName,
     technicianName: wo.technicianName,
+    assignedTechId: wo.assignedTechId,
     timeline,
     concerns,
     findings: findings.map((f) => ({ ...f, photos: f.photos })),

@@ -8,7 +8,7 @@ import type { SessionUser } from "./session-user";
 
 export type ActionResult<T> =
   | { ok: true; data: T }
-  | { ok: false; error: string; code: string; fieldErrors?: Record<string, string> };
+  | { ok: false; error: string; code: string; fieldErrors?: Record<string, string>; extra?: Record<string, unknown> };
 
 /** Form data to a plain object; repeated names become arrays. */
 export function formDataToObject(form: FormData): Record<string, unknown> {
@@ -73,7 +73,7 @@ async function settle<T>(run: () => Promise<ActionResult<T>>): Promise<ActionRes
     unstable_rethrow(error);
     if (error instanceof HttpError) {
       const fieldErrors = error.errors ? Object.fromEntries(error.errors.map((e) => [e.path, e.message])) : undefined;
-      return { ok: false, code: error.code, error: error.detail, ...(fieldErrors ? { fieldErrors } : {}) };
+      return { ok: false, code: error.code, error: error.detail, ...(fieldErrors ? { fieldErrors } : {}), ...(error.extra ? { extra: error.extra } : {}) };
     }
     console.error(error);
     return { ok: false, code: "internal_error", error: "Something went wrong. Nothing was changed; try again." };

@@ -11,14 +11,15 @@ import { UnitFacts } from "@/components/units/unit-facts";
 import { WorkOrderHistory } from "@/components/units/work-order-history";
 import { currentVisit } from "@/db/queries/finding-reads";
 import { getUnitDetail } from "@/db/queries/units";
-import { requireUser } from "@/lib/auth/current-user";
+import { requirePageRole } from "@/lib/auth/page-access";
+import { CAN } from "@/lib/auth/policy";
 import { calendarDate } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Unit" };
 
 export default async function FleetUnitPage({ params }: { params: Promise<{ id: string }> }) {
+  const user = await requirePageRole(CAN.fleet);
   const { id } = await params;
-  const user = await requireUser();
   // Scoped to the user's account: another account's unit is simply not found.
   const [detail, visit] = await Promise.all([getUnitDetail(user, id), currentVisit(user, id)]);
   if (!detail || !visit) notFound();
@@ -28,13 +29,18 @@ export default async function FleetUnitPage({ params }: { params: Promise<{ id: 
       <PageHeader title={`Unit ${unit.unitNumber}`} kicker={unit.description}>
         <LiveVisitStatus unitId={unit.id} initial={visit} />
       </PageHeader>
-      {openWorkOrder ? (
-        <p className="mb-4">
+      <p className="mb-4 flex flex-wrap gap-2">
+        {openWorkOrder ? (
           <ButtonLink href={`/fleet/work-orders/${openWorkOrder.id}`} data-testid="open-estimate">
             {openWorkOrder.status === "waiting_approval" ? "Review the estimate and decide" : "See this visit's estimate"}
           </ButtonLink>
-        </p>
-      ) : null}
+        ) : null}
+        {unit.retiredAt ? null : (
+          <ButtonLink href={`/fleet/reports/new?unitId=${unit.id}`} variant="secondary">
+            Report a defect
+          </ButtonLink>
+        )}
+      </p>
       <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
         <div className="flex flex-col gap-4">
           <LiveVisit unitId={unit.id} initial={visit} />
