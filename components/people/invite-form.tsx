@@ -15,7 +15,8 @@ import { formatDateTime } from "@/lib/format";
 export function InviteForm({ accounts, accountId, roles }: { accounts?: { id: string; name: string }[]; accountId?: string; roles?: readonly Role[] }) {
   const offered = roles ?? (accountId ? FLEET_ROLES : ROLES);
   const [state, action, pending, formRef] = useGuardedForm(inviteAction);
-  const [role, setRole] = useState<Role>(offered[0] ?? "approver");
+  // Most invitations are for a writer, a technician or a fleet's approver; the owner role is a deliberate choice.
+  const [role, setRole] = useState<Role>(offered.includes("writer") ? "writer" : (offered[0] ?? "approver"));
   const errors = state && !state.ok ? (state.fieldErrors ?? {}) : {};
   return (
     <form ref={formRef} action={action} className="grid gap-3 md:grid-cols-2" data-testid="invite-form">

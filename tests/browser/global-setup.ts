@@ -1,6 +1,5 @@
-import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { spawnSync } from "node:child_process";
 import { existsSync, mkdirSync, rmSync } from "node:fs";
-import { createServer } from "node:net";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
 import { migrateDatabase } from "@/db/migrate";
@@ -8,10 +7,7 @@ import { seedDatabase } from "@/db/seed";
 import { startFakeSmtp } from "@/mocks/smtp/server";
 import { startFakeStripe } from "@/mocks/stripe/server";
 import { startFakeUploadThing } from "@/mocks/uploadthing/server";
-
-const root = path.join(import.meta.dirname, "..", "..");
-// A separate build directory per checkout or worktree lets test runs sit side by side.
-const distDir = process.env.COTTER_TEST_DIST_DIR ?? ".next-test";
+import { distDir, freePort, root, startAppServer } from "./app-server";
 
 declare module "vitest" {
   export interface ProvidedContext {
@@ -19,31 +15,6 @@ declare module "vitest" {
     mailUrl: string;
     paymentsUrl: string;
   }
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
-    });
-  });
-}
-
-async function waitForHealth(url: string, server: ChildProcess, timeoutMs = 60_000): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    if (server.exitCode !== null) throw new Error(`app server exited with ${server.exitCode}`);
-    try {
-      const res = await fetch(`${url}/api/v1/health`);
-      if (res.ok) return;
-    } catch {
-      // not up yet
-    }
-    await new Promise((r) => setTimeout(r, 300));
-  }
-  throw new Error(`app server did not answer at ${url} within ${timeoutMs} ms`);
 }
 
 /**
@@ -77,13 +48,9 @@ export default async function setup(project: TestProject) {
   const webhookSecret = "whsec_browser_tests";
   // Retries come quickly here, in the same rising shape as the service's.
   const payments = await startFakeStripe({ port: 0, webhookUrl: `${baseUrl}/api/webhooks/stripe`, webhookSecret, retryDelaysMs: [500, 2_000, 5_000] });
-  const server = spawn(path.join(root, "node_modules", ".bin", "next"), ["start", "-p", String(port), "-H", "127.0.0.1"], {
-    cwd: root,
-    env: {
-      ...env,
-      NODE_ENV: "production",
+  const server = await startAppServer(
+    {
       DATABASE_URL: dbUrl,
-      NEXTAUTH_URL: baseUrl,
       NEXTAUTH_SECRET: "browser-tests-secret-browser-tests-secret",
       SMTP_URL: `smtp://127.0.0.1:${smtp.smtpPort}`,
       STRIPE_SECRET_KEY: "",
@@ -92,16 +59,15 @@ export default async function setup(project: TestProject) {
       // No UPLOADTHING_TOKEN: the app points the SDK at the fake on this port (lib/uploads/config.ts).
       FAKE_UPLOADTHING_PORT: new URL(uploads.url).port,
     },
-    stdio: ["ignore", "inherit", "inherit"],
-  });
-  await waitForHealth(baseUrl, server);
+    port,
+  );
 
   project.provide("baseUrl", baseUrl);
   project.provide("mailUrl", `http://127.0.0.1:${smtp.httpPort}`);
   project.provide("paymentsUrl", payments.url);
 
   return async () => {
-    server.kill("SIGTERM");
+    server.stop();
     await Promise.all([smtp.close(), uploads.close(), payments.close()]);
   };
 }
