@@ -1,25 +1,18 @@
 "use client";
 
-import { useEffect, useState } from "react";
 import { Field, FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
 import { setupAction } from "@/lib/actions/public";
-import { signInWith } from "./sign-in-after";
+import { useSignInAfter } from "./use-sign-in-after";
 
 /** The one-time set-up of an empty Cotter: the shop, its labour rate, and its owner. */
 export function SetupForm() {
   const [state, action, pending, formRef] = useGuardedForm(setupAction);
-  const [signing, setSigning] = useState(false);
   const errors = state && !state.ok ? (state.fieldErrors ?? {}) : {};
-  useEffect(() => {
-    if (!state?.ok || !formRef.current) return;
-    const password = String(new FormData(formRef.current).get("password") ?? "");
-    setSigning(true);
-    void signInWith(state.data.email, password).then((ok) => window.location.assign(ok ? "/settings/people" : "/sign-in"));
-  }, [state, formRef]);
+  const { signing, onSubmit } = useSignInAfter(state, "password", (ok) => window.location.assign(ok ? "/settings/people" : "/sign-in"));
   return (
-    <form ref={formRef} action={action} className="flex flex-col gap-4" data-testid="setup-form">
+    <form ref={formRef} action={action} onSubmit={onSubmit} className="flex flex-col gap-4" data-testid="setup-form">
       <fieldset className="flex flex-col gap-3">
         <legend className="mb-1 text-lg font-bold">The shop</legend>
         <Field label="Shop name" name="shopName" autoComplete="organization" error={errors.shopName} />

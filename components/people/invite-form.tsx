@@ -1,7 +1,7 @@
 "use client";
 
 import { useState } from "react";
-import { Field, FormMessage, inputClass } from "@/components/forms/field";
+import { Field, FormMessage, SelectField } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
 import { inviteAction } from "@/lib/actions/people";
@@ -22,30 +22,11 @@ export function InviteForm({ accounts, accountId, roles }: { accounts?: { id: st
     <form ref={formRef} action={action} className="grid gap-3 md:grid-cols-2" data-testid="invite-form">
       <Field label="Name" name="name" autoComplete="off" error={errors.name} />
       <Field label="E-mail" name="email" type="email" autoComplete="off" error={errors.email} />
-      <label className="flex flex-col gap-1">
-        <span className="font-semibold">Role</span>
-        <select name="role" value={role} onChange={(e) => setRole(e.target.value as Role)} className={inputClass}>
-          {offered.map((r) => (
-            <option key={r} value={r}>
-              {ROLE_LABELS[r]}
-            </option>
-          ))}
-        </select>
-      </label>
+      <SelectField label="Role" name="role" value={role} onChange={(e) => setRole(e.target.value as Role)} options={offered.map((r) => [r, ROLE_LABELS[r]] as const)} error={errors.role} />
       {isShopRole(role) ? null : accountId ? (
         <input type="hidden" name="accountId" value={accountId} />
       ) : (
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold">Fleet account</span>
-          <select name="accountId" className={inputClass} aria-invalid={errors.accountId ? true : undefined}>
-            {(accounts ?? []).map((a) => (
-              <option key={a.id} value={a.id}>
-                {a.name}
-              </option>
-            ))}
-          </select>
-          {errors.accountId ? <span className="text-sm font-semibold text-rust-deep">{errors.accountId}</span> : null}
-        </label>
+        <SelectField label="Fleet account" name="accountId" options={(accounts ?? []).map((a) => [a.id, a.name] as const)} error={errors.accountId} />
       )}
       {role === "approver" ? (
         <Field label="Signing limit ($ per work order)" name="signingLimit" inputMode="decimal" error={errors.signingLimit} hint="The most this person may approve on one work order." />

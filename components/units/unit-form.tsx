@@ -2,7 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useEffect } from "react";
-import { Field, FormMessage, inputClass } from "@/components/forms/field";
+import { Field, FormMessage, SelectField } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
 import { createUnitAction, editUnitAction } from "@/lib/actions/units";
@@ -39,18 +39,7 @@ export function UnitForm({ initial, accounts }: { initial: UnitFormValues; accou
     <form ref={formRef} action={action} className="grid gap-4 md:grid-cols-2" data-testid="unit-form">
       {isNew ? null : <input type="hidden" name="unitId" value={initial.unitId} />}
       {isNew && accounts ? (
-        <label className="flex flex-col gap-1 md:col-span-2">
-          <span className="font-semibold">Fleet account</span>
-          <select name="accountId" defaultValue={initial.accountId} className={inputClass} aria-invalid={errors.accountId ? true : undefined}>
-            <option value="">Choose…</option>
-            {accounts.map((a) => (
-              <option key={a.id} value={a.id}>
-                {a.name}
-              </option>
-            ))}
-          </select>
-          {errors.accountId ? <span className="text-sm font-semibold text-rust-deep">{errors.accountId}</span> : null}
-        </label>
+        <SelectField label="Fleet account" name="accountId" defaultValue={initial.accountId} className="md:col-span-2" options={[["", "Choose…"], ...accounts.map((a) => [a.id, a.name] as const)]} error={errors.accountId} />
       ) : isNew ? (
         <input type="hidden" name="accountId" value={initial.accountId} />
       ) : null}
@@ -75,18 +64,7 @@ export function UnitForm({ initial, accounts }: { initial: UnitFormValues; accou
         hint={initial.lastEngineHours !== null ? `Last reading ${initial.lastEngineHours.toLocaleString("en-US")} h; leave empty for no new reading.` : "Today's reading, if known."}
       />
       <Field label="Last annual inspection" name="lastInspectionOn" type="date" defaultValue={initial.lastInspectionOn} error={errors.lastInspectionOn} />
-      <label className="flex flex-col gap-1">
-        <span className="font-semibold">Inspected under</span>
-        <select name="inspectionBasis" defaultValue={initial.inspectionBasis} className={inputClass} aria-invalid={errors.inspectionBasis ? true : undefined}>
-          <option value="">Not recorded</option>
-          {INSPECTION_BASES.map((b) => (
-            <option key={b} value={b}>
-              {INSPECTION_BASIS_LABELS[b]}
-            </option>
-          ))}
-        </select>
-        {errors.inspectionBasis ? <span className="text-sm font-semibold text-rust-deep">{errors.inspectionBasis}</span> : null}
-      </label>
+      <SelectField label="Inspected under" name="inspectionBasis" defaultValue={initial.inspectionBasis} options={[["", "Not recorded"], ...INSPECTION_BASES.map((b) => [b, INSPECTION_BASIS_LABELS[b]] as const)]} error={errors.inspectionBasis} />
       <Field
         label="Accepted key-off drain (mA)"
         name="keyOffDrainLimitMa"

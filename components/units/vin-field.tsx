@@ -26,9 +26,12 @@ export function VinField({ vin, serialOnly, serial, errors }: { vin: string; ser
           <Field label="Serial number" name="serial" defaultValue={serial} error={errors.serial} />
         </>
       ) : (
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold">VIN</span>
+        <div className="flex flex-col gap-1">
+          <label htmlFor="unit-vin" className="font-semibold">
+            VIN
+          </label>
           <input
+            id="unit-vin"
             name="vin"
             value={value}
             onChange={(e) => setValue(e.target.value)}
@@ -50,7 +53,7 @@ export function VinField({ vin, serialOnly, serial, errors }: { vin: string; ser
             {shown.state === "ok" ? "✓ " : shown.state === "error" ? "✗ " : ""}
             {shown.message}
           </span>
-        </label>
+        </div>
       )}
     </div>
   );

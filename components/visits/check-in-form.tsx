@@ -1,9 +1,9 @@
 "use client";
 
 import Link from "next/link";
-import { useRouter } from "next/navigation";
-import { useEffect, useState } from "react";
-import { Field, FormMessage, inputClass } from "@/components/forms/field";
+import { useState } from "react";
+import { Field, FormMessage, SelectField, inputClass } from "@/components/forms/field";
+import { staffOptions } from "./staff-options";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
 import { Money } from "@/components/ui/money";
@@ -25,14 +25,10 @@ export interface CheckInSetup {
 
 /** Check-in: what the unit came in for, its meters, who works on it, when it is promised, and deferred work to bring back. */
 export function CheckInForm({ setup }: { setup: CheckInSetup }) {
-  const router = useRouter();
   const [state, action, pending, formRef] = useGuardedForm(checkInAction);
   const [complaints, setComplaints] = useState<string[]>(setup.complaints.length ? setup.complaints : [""]);
   const errors = state && !state.ok ? (state.fieldErrors ?? {}) : {};
   const inShop = state && !state.ok && state.code === "unit_in_shop" ? String(state.extra?.href ?? "") : null;
-  useEffect(() => {
-    if (state?.ok) router.push(`/work-orders/${state.data.workOrderId}`);
-  }, [state, router]);
   return (
     <form ref={formRef} action={action} className="flex flex-col gap-5" data-testid="check-in-form">
       <input type="hidden" name="unitId" value={setup.unitId} />
@@ -78,19 +74,7 @@ export function CheckInForm({ setup }: { setup: CheckInSetup }) {
           error={errors.engineHours}
           hint={setup.lastEngineHours !== null ? `Last reading ${setup.lastEngineHours.toLocaleString("en-US")} h.` : undefined}
         />
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold">Technician</span>
-          <select name="assignedTechId" defaultValue="" className={inputClass} aria-invalid={errors.assignedTechId ? true : undefined}>
-            <option value="">Not assigned yet</option>
-            {setup.staff.map((s) => (
-              <option key={s.id} value={s.id}>
-                {s.name}
-                {s.role === "tech" ? "" : ` (${s.role})`}
-              </option>
-            ))}
-          </select>
-          {errors.assignedTechId ? <span className="text-sm font-semibold text-rust-deep">{errors.assignedTechId}</span> : null}
-        </label>
+        <SelectField label="Technician" name="assignedTechId" defaultValue="" options={staffOptions(setup.staff, "Not assigned yet")} error={errors.assignedTechId} />
         <Field label="Promised by" name="promisedAt" type="datetime-local" error={errors.promisedAt} />
         <Field label={setup.poRequired ? "PO number (this account needs one to invoice)" : "PO number"} name="poNumber" error={errors.poNumber} />
       </fieldset>

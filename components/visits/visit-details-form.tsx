@@ -1,6 +1,7 @@
 "use client";
 
-import { Field, FormMessage, inputClass } from "@/components/forms/field";
+import { Field, FormMessage, SelectField } from "@/components/forms/field";
+import { staffOptions } from "./staff-options";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
 import { visitDetailsAction } from "@/lib/actions/visits";
@@ -20,18 +21,7 @@ export function VisitDetailsForm({
   return (
     <form ref={formRef} action={action} className="grid gap-3 sm:grid-cols-3" data-testid="visit-details">
       <input type="hidden" name="workOrderId" value={workOrderId} />
-      <label className="flex flex-col gap-1">
-        <span className="font-semibold">Technician</span>
-        <select name="assignedTechId" defaultValue={initial.assignedTechId} className={inputClass} aria-invalid={errors.assignedTechId ? true : undefined}>
-          <option value="">Not assigned</option>
-          {staff.map((s) => (
-            <option key={s.id} value={s.id}>
-              {s.name}
-              {s.role === "tech" ? "" : ` (${s.role})`}
-            </option>
-          ))}
-        </select>
-      </label>
+      <SelectField label="Technician" name="assignedTechId" defaultValue={initial.assignedTechId} options={staffOptions(staff, "Not assigned")} error={errors.assignedTechId} />
       <Field label="Promised by" name="promisedAt" type="datetime-local" defaultValue={initial.promisedAt} error={errors.promisedAt} />
       <Field label="PO number" name="poNumber" defaultValue={initial.poNumber} error={errors.poNumber} />
       <div className="flex items-center gap-3 sm:col-span-3">

@@ -1,6 +1,7 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
+import { redirect } from "next/navigation";
 import { checkIn } from "@/db/queries/check-in";
 import { addConcern, updateConcern, updateVisit } from "@/db/queries/visit-writes";
 import { guardedAction } from "@/lib/auth/guarded-action";
@@ -21,7 +22,8 @@ export const checkInAction = guardedAction({ roles: CAN.manageAccounts, input: c
   const wo = await checkIn(user, input);
   await afterCheckIn(wo);
   revalidatePath("/floor");
-  return { workOrderId: wo.id, label: wo.label };
+  // Straight to the new visit: the check-in page itself now says the unit is in the shop.
+  redirect(`/work-orders/${wo.id}`);
 });
 
 /** The writer's visit details: technician, promised-by, PO number (empty clears). */

@@ -147,7 +147,8 @@ describe("the first week of a new shop, from an empty database", () => {
     // New accounts start on the Florida overrun shape (reference-values.md).
     expect(await writer.getByRole("button", { name: /Florida 559\.909/ }).getAttribute("aria-pressed")).toBe("true");
     await writer.getByRole("button", { name: "Create the account" }).click();
-    await writer.waitForURL(/\/accounts\/[a-z0-9]+$/);
+    // Ids are 20 characters: not "/accounts/new".
+    await writer.waitForURL(/\/accounts\/[a-z0-9]{20}$/);
     accountUrl = new URL(writer.url()).pathname;
     await invite(writer, { name: "Della Ruiz", email: "della@harrow-creek.example", role: "approver", limit: "5000" });
     await invite(writer, { name: "Tom Brecker", email: "tom@harrow-creek.example", role: "viewer" });
@@ -198,7 +199,8 @@ describe("the first week of a new shop, from an empty database", () => {
     await writer.goto("/units?q=HC-1");
     expect(await writer.getByTestId("unit-row").count()).toBe(4);
     // Any four characters of a VIN find its unit.
-    await writer.goto(`/units?q=${CSV_VINS[2]!.slice(11, 16)}`);
+    // The last five characters of HC-16's VIN, which no other unit shares.
+    await writer.goto(`/units?q=${CSV_VINS[2]!.slice(-5)}`);
     expect(await writer.getByTestId("unit-row").allInnerTexts()).toEqual([expect.stringContaining("HC-16")]);
   });
 
@@ -207,7 +209,7 @@ describe("the first week of a new shop, from an empty database", () => {
     await acceptInvitation(foreman, "tom@harrow-creek.example", "tom-drives-the-plow");
     await foreman.getByRole("link", { name: "Report a defect" }).first().click();
     await foreman.waitForURL(/\/fleet\/reports\/new/);
-    await foreman.getByLabel("Unit", { exact: true }).selectOption({ label: "HC-12 · Tandem-axle dump with front plow" });
+    await foreman.getByRole("combobox", { name: /^Unit/ }).selectOption({ label: "HC-12 · Tandem-axle dump with front plow" });
     await foreman.getByLabel("Where on the unit").selectOption("Service brakes and trailer brake connections");
     await foreman.getByLabel("What is wrong").fill("Air leak at the left rear brake chamber; pressure drops with the brakes applied.");
     await foreman.getByRole("checkbox").first().check();

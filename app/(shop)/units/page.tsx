@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { inputClass } from "@/components/forms/field";
+import { SelectField, inputClass } from "@/components/forms/field";
 import { Button, ButtonLink } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
 import { Pager, UnitList } from "@/components/units/unit-list";
@@ -33,17 +33,7 @@ export default async function ShopUnitsPage({ searchParams }: { searchParams: Pr
           <span className="font-semibold">Search</span>
           <input name="q" type="search" defaultValue={params.q} placeholder="Unit number, 4+ characters of a VIN, plate, description, account" className={inputClass} />
         </label>
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold">Account</span>
-          <select name="accountId" defaultValue={params.accountId ?? ""} className={inputClass}>
-            <option value="">All accounts</option>
-            {accounts.map((a) => (
-              <option key={a.id} value={a.id}>
-                {a.name}
-              </option>
-            ))}
-          </select>
-        </label>
+        <SelectField label="Account" name="accountId" defaultValue={params.accountId ?? ""} options={[["", "All accounts"], ...accounts.map((a) => [a.id, a.name] as const)]} />
         <label className="flex min-h-touch items-center gap-2">
           <input type="checkbox" name="inShop" value="true" defaultChecked={Boolean(params.inShop)} className="size-5 accent-rust" />
           In the shop

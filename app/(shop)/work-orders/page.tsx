@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { inputClass } from "@/components/forms/field";
+import { SelectField, inputClass } from "@/components/forms/field";
 import { Button, ButtonLink } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
@@ -44,39 +44,9 @@ export default async function WorkOrdersPage({ searchParams }: { searchParams: P
         {hasRole(user, CAN.manageAccounts) ? <ButtonLink href="/work-orders/new">Check a unit in</ButtonLink> : null}
       </PageHeader>
       <form method="get" action="/work-orders" className="mb-4 grid gap-3 rounded-card border border-rule bg-paper-card p-3 sm:grid-cols-2 lg:grid-cols-6 lg:items-end">
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold">Status</span>
-          <select name="status" defaultValue={status ?? ""} className={inputClass}>
-            <option value="">Any</option>
-            {WORK_ORDER_STATUSES.map((s) => (
-              <option key={s} value={s}>
-                {STATUS_LABELS[s]}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold">Account</span>
-          <select name="accountId" defaultValue={params.accountId ?? ""} className={inputClass}>
-            <option value="">All</option>
-            {accounts.map((a) => (
-              <option key={a.id} value={a.id}>
-                {a.name}
-              </option>
-            ))}
-          </select>
-        </label>
-        <label className="flex flex-col gap-1">
-          <span className="font-semibold">Technician</span>
-          <select name="technicianId" defaultValue={params.technicianId ?? ""} className={inputClass}>
-            <option value="">Anyone</option>
-            {staff.map((s) => (
-              <option key={s.id} value={s.id}>
-                {s.name}
-              </option>
-            ))}
-          </select>
-        </label>
+        <SelectField label="Status" name="status" defaultValue={status ?? ""} options={[["", "Any"], ...WORK_ORDER_STATUSES.map((s) => [s, STATUS_LABELS[s]] as const)]} />
+        <SelectField label="Account" name="accountId" defaultValue={params.accountId ?? ""} options={[["", "All"], ...accounts.map((a) => [a.id, a.name] as const)]} />
+        <SelectField label="Technician" name="technicianId" defaultValue={params.technicianId ?? ""} options={[["", "Anyone"], ...staff.map((s) => [s.id, s.name] as const)]} />
         <label className="flex flex-col gap-1">
           <span className="font-semibold">Opened from</span>
           <input type="date" name="openedFrom" defaultValue={params.openedFrom} className={inputClass} />

@@ -11,12 +11,12 @@ import { getDb } from "@/db/client";
 import { deferredLinesForUnit } from "@/db/queries/estimate-lines";
 import { assignableStaff } from "@/db/queries/people";
 import { getServiceRequest } from "@/db/queries/service-requests";
+import { deferredOffers } from "@/db/queries/shop-work-order-page";
 import { getUnitDetail, listUnits } from "@/db/queries/units";
 import { accounts } from "@/db/schema";
 import { requirePageRole } from "@/lib/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { workOrderLabel } from "@/lib/domain";
-import { lineAmountCents } from "@/lib/money";
 import { defectComplaint } from "@/lib/service-requests";
 import { eq } from "drizzle-orm";
 
@@ -109,13 +109,7 @@ export default async function CheckInPage({ searchParams }: { searchParams: Prom
             odometer: request?.odometer ? String(request.odometer) : "",
             engineHours: request?.engineHours ? String(request.engineHours) : "",
             poRequired: account?.poRequired ?? false,
-            deferred: deferred.map(({ estimate_lines: l, work_orders: w }) => ({
-              id: l.id,
-              description: l.description,
-              amountCents: lineAmountCents(l.quantityMilli, l.unitPriceCents),
-              state: l.state as "held" | "declined",
-              woLabel: workOrderLabel(w.number),
-            })),
+            deferred: deferredOffers(deferred),
           }}
         />
       </Card>
