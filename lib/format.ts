@@ -56,3 +56,12 @@ export function calendarDate(instant: Date, timeZone = DEFAULT_TIME_ZONE): strin
 export function formatQuantity(milli: number): string {
   return (milli / 1000).toLocaleString("en-US", { maximumFractionDigits: 3 });
 }
+
+/** A complaint as a visit's title: the first sentence, cut at a word near `max` characters with an ellipsis. */
+export function shortTitle(text: string, max = 70): string {
+  const first = text.replace(/\s+\(reported by [^)]*\)\s*$/, "").split(/(?<=[.;!?])\s/)[0]!.trim().replace(/[.;]$/, "");
+  if (first.length <= max) return first;
+  const cut = first.slice(0, max);
+  const space = cut.lastIndexOf(" ");
+  return `${(space > max / 2 ? cut.slice(0, space) : cut).replace(/[,;:\s]+$/, "")}…`;
+}

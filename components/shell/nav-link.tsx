@@ -10,7 +10,7 @@ export function NavLink({ href, children, exact = false }: { href: string; child
     <Link
       href={href}
       aria-current={active ? "page" : undefined}
-      className={`flex min-h-touch items-center border-b-4 px-3 font-semibold no-underline ${
+      className={`flex min-h-touch items-center border-b-4 px-3 font-semibold whitespace-nowrap no-underline ${
         active ? "border-rust text-ink" : "border-transparent text-ink-soft hover:text-ink"
       }`}
     >

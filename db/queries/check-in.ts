@@ -3,7 +3,7 @@ import { getDb, writeTx, type Tx } from "@/db/client";
 import { accounts, concerns, counters, meterReadings, serviceRequestDefects, serviceRequests, statusEvents, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { STATUS_LABELS, isShopRole, workOrderLabel, type MeterKind } from "@/lib/domain";
-import { formatDateTime } from "@/lib/format";
+import { formatDateTime, shortTitle } from "@/lib/format";
 import { HttpError, conflict, invalidInput, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
 import { checkMeterReading } from "@/lib/meters";
@@ -102,7 +102,7 @@ export async function checkIn(user: SessionUser, input: CheckInInput) {
           unitId: unit.id,
           accountId: unit.accountId,
           status: "checked_in",
-          title: input.title ?? complaints[0]!.slice(0, 160),
+          title: input.title ?? shortTitle(complaints[0]!),
           assignedTechId: tech?.id ?? null,
           promisedAt: input.promisedAt ?? null,
           poNumber: input.poNumber ?? null,
