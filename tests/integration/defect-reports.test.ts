@@ -6,7 +6,8 @@ import { POST as checkIn } from "@/app/api/v1/work-orders/route";
 import { GET as listReports } from "@/app/api/v1/service-requests/route";
 import { POST as report } from "@/app/api/v1/units/[id]/service-requests/route";
 import { getDb } from "@/db/client";
-import { serviceRequests, units } from "@/db/schema";
+import { takeUnattachedPhotos } from "@/db/queries/photo-sweep";
+import { photos, serviceRequests, units } from "@/db/schema";
 import { DVIR_AREAS } from "@/lib/service-requests";
 import { call, userByEmail } from "./helpers/app";
 import { catchMail } from "./helpers/mail";
@@ -102,6 +103,25 @@ describe("defect reports from the fleet, in the shape of a driver's inspection r
     await mail.smtp().waitFor((x) => x.to.includes(FOREMAN) && x.subject.includes("are fixed"));
     const view = await call<{ concerns: unknown[] }>(getWo, { path: `/api/v1/work-orders/${res.body.id}`, as: FOREMAN, params: { id: res.body.id } });
     expect(view.body.concerns).toHaveLength(2);
+  });
+
+  it("carries the reporter's own fresh photo of the unit, and no one else's; the sweep of unattached photos leaves it", async () => {
+    const t5 = await unit("T-5");
+    const foreman = await userByEmail(FOREMAN);
+    const supervisor = await userByEmail("supervisor@brennan-twp.example");
+    // As the upload route leaves a photo taken for a unit before the report is sent: the uploader's, on no visit yet.
+    const fresh = (uploadedBy: string, createdAt = new Date().toISOString()) => ({ accountId: t5.accountId, unitId: t5.id, uploadedBy, fileKey: `k-${Math.random()}`, fileUrl: "http://uploads.invalid/x", mime: "image/jpeg", createdAt });
+    const [mine] = await getDb().insert(photos).values(fresh(foreman.id, "2020-01-01T00:00:00.000Z")).returning();
+    const [theirs] = await getDb().insert(photos).values(fresh(supervisor.id)).returning();
+    const refused = await call(report, { path: `/api/v1/units/${t5.id}/service-requests`, as: FOREMAN, params: { id: t5.id }, body: { defects: [{ description: "Cracked windshield" }], photoId: theirs!.id } });
+    expect(refused.status).toBe(400);
+    const res = await call<Report>(report, { path: `/api/v1/units/${t5.id}/service-requests`, as: FOREMAN, params: { id: t5.id }, body: { defects: [{ area: "Windshield wipers", description: "Wiper blade torn" }], photoId: mine!.id } });
+    expect(res.status).toBe(201);
+    const listed = await call<{ serviceRequests: (Report & { photos: { url: string }[] })[] }>(listReports, { path: "/api/v1/service-requests?status=open", as: WRITER });
+    expect(listed.body.serviceRequests.find((r) => r.id === res.body.id)!.photos).toEqual([{ url: `/api/v1/photos/${mine!.id}`, thumbUrl: `/api/v1/photos/${mine!.id}/thumb` }]);
+    // A week-old unattached photo is swept; one on a report stays.
+    const swept = await takeUnattachedPhotos(new Date().toISOString(), 100);
+    expect(swept.map((p) => p.id)).not.toContain(mine!.id);
   });
 
   it("names the parts a driver's report covers, 49 CFR 396.11(a)(1)(i)–(xi) (from memory for the exact wording)", () => {
