@@ -1,16 +1,16 @@
-import { and, asc, desc, eq, ne, sql } from "drizzle-orm";
+import { and, asc, eq, ne, sql } from "drizzle-orm";
 import { getDb, writeTx, type Tx } from "@/db/client";
-import { accounts, concerns, counters, meterReadings, serviceRequestDefects, serviceRequests, statusEvents, units, users, workOrders } from "@/db/schema";
+import { accounts, concerns, counters, serviceRequestDefects, serviceRequests, statusEvents, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { STATUS_LABELS, isShopRole, workOrderLabel, type MeterKind } from "@/lib/domain";
+import { STATUS_LABELS, isShopRole, workOrderLabel } from "@/lib/domain";
 import { formatDateTime, shortTitle } from "@/lib/format";
 import { HttpError, conflict, invalidInput, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
-import { checkMeterReading } from "@/lib/meters";
 import { defectComplaint } from "@/lib/service-requests";
 import type { CheckInInput } from "@/lib/validation/visit";
 import { recordAudit } from "./audit";
 import { copyDeferredLines } from "./estimate-lines";
+import { recordFormReading } from "./meters";
 
 /** The 409 for a unit already in the shop, with the way to its open visit. */
 export function unitInShop(unitNumber: string, open: { id: string; number: number; status: keyof typeof STATUS_LABELS }): HttpError {
@@ -36,20 +36,6 @@ async function assignable(tx: Tx, userId: string) {
   if (!tech || !tech.active || !isShopRole(tech.role)) return null;
   return tech;
 }
-
-async function record(tx: Tx, user: SessionUser, unitId: string, workOrderId: string, kind: MeterKind, value: number, field: string) {
-  const [previous] = await tx
-    .select({ value: meterReadings.value, readAt: meterReadings.readAt })
-    .from(meterReadings)
-    .where(and(eq(meterReadings.unitId, unitId), eq(meterReadings.kind, kind)))
-    .orderBy(desc(meterReadings.readAt), desc(meterReadings.createdAt))
-    .limit(1);
-  // The lower-reading rule: a meter only goes up unless it was replaced (recorded on the unit's page, by the shop).
-  const check = checkMeterReading(kind, previous ?? null, { value, meterReplaced: false });
-  if (!check.ok) throw invalidInput([{ path: field, message: check.message }], check.message);
-  await tx.insert(meterReadings).values({ unitId, workOrderId, kind, value, readAt: nowIso(), recordedBy: user.id, note: "At check-in" });
-}
-
 
 /**
  * Check-in: opens a work order on a unit with its complaints, readings,
@@ -111,8 +97,9 @@ export async function checkIn(user: SessionUser, input: CheckInInput) {
         })
         .returning();
       await tx.insert(concerns).values(complaints.map((complaint, position) => ({ unitId: unit.id, workOrderId: wo!.id, position, complaint, createdBy: user.id })));
-      if (input.odometer !== undefined) await record(tx, user, unit.id, wo!.id, "odometer", input.odometer, "odometer");
-      if (input.engineHours !== undefined) await record(tx, user, unit.id, wo!.id, "engine_hours", input.engineHours, "engineHours");
+      const at0 = { unitId: unit.id, workOrderId: wo!.id, note: "At check-in" };
+      if (input.odometer !== undefined) await recordFormReading(tx, user, { ...at0, kind: "odometer", value: input.odometer, field: "odometer" });
+      if (input.engineHours !== undefined) await recordFormReading(tx, user, { ...at0, kind: "engine_hours", value: input.engineHours, field: "engineHours" });
       await copyDeferredLines(tx, user, wo!, input.bringBackLineIds, 0);
       const note = [
         `Checked in for ${complaints.length === 1 ? "one concern" : `${complaints.length} concerns`}`,

@@ -1,17 +1,16 @@
-import { and, desc, eq, inArray, isNull, ne, sql } from "drizzle-orm";
+import { and, eq, inArray, isNull, ne, sql } from "drizzle-orm";
 import { getDb, writeTx, type Reader, type Tx } from "@/db/client";
-import { accounts, meterReadings, units } from "@/db/schema";
+import { accounts, units } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import type { MeterKind } from "@/lib/domain";
 import { calendarDate } from "@/lib/format";
 import { HttpError, invalidInput, notFound, type FieldProblem } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
-import { checkMeterReading } from "@/lib/meters";
 import { annualInspectionDueDate } from "@/lib/specs";
 import { allProblems, checkUnitCsv, type CsvCheck, type CsvProblem } from "@/lib/units/csv-import";
 import { unitFields, unitRuleIssues, type UnitCreateInput, type UnitFieldsIn, type UnitPatchInput } from "@/lib/validation/unit";
 import { fieldProblems } from "@/lib/http/zod-problems";
 import { recordAudit } from "./audit";
+import { recordFormReading } from "./meters";
 
 type UnitRow = typeof units.$inferSelect;
 
@@ -82,23 +81,10 @@ async function conflicts(tx: Reader, accountId: string, wanted: { row: number; u
 
 const asFields = (problems: CsvProblem[]): FieldProblem[] => problems.map((p) => ({ path: p.field, message: p.message }));
 
-async function addReading(tx: Tx, user: SessionUser, unitId: string, kind: MeterKind, value: number, field: string) {
-  const [previous] = await tx
-    .select({ value: meterReadings.value, readAt: meterReadings.readAt })
-    .from(meterReadings)
-    .where(and(eq(meterReadings.unitId, unitId), eq(meterReadings.kind, kind)))
-    .orderBy(desc(meterReadings.readAt), desc(meterReadings.createdAt))
-    .limit(1);
-  if (previous?.value === value) return;
-  const check = checkMeterReading(kind, previous ?? null, { value, meterReplaced: false });
-  if (!check.ok) throw invalidInput([{ path: field, message: check.message }], check.message);
-  await tx.insert(meterReadings).values({ unitId, kind, value, readAt: nowIso(), recordedBy: user.id });
-}
-
 async function insertUnit(tx: Tx, user: SessionUser, accountId: string, v: UnitFieldsIn, vin: string | null) {
   const [row] = await tx.insert(units).values({ accountId, ...toColumns(v, vin) }).returning();
-  if (v.odometer !== undefined) await addReading(tx, user, row!.id, "odometer", v.odometer, "odometer");
-  if (v.engineHours !== undefined) await addReading(tx, user, row!.id, "engine_hours", v.engineHours, "engineHours");
+  if (v.odometer !== undefined) await recordFormReading(tx, user, { unitId: row!.id, kind: "odometer", value: v.odometer, field: "odometer" });
+  if (v.engineHours !== undefined) await recordFormReading(tx, user, { unitId: row!.id, kind: "engine_hours", value: v.engineHours, field: "engineHours" });
   return row!;
 }
 
@@ -156,8 +142,8 @@ export async function updateUnit(user: SessionUser, unitId: string, patch: UnitP
     for (const c of AUDITED) if (before[c] !== next[c]) changed[c] = { from: before[c], to: next[c] };
     if (retiredAt !== before.retiredAt) changed.retired = { from: before.retiredAt !== null, to: retiredAt !== null };
     const [row] = await tx.update(units).set({ ...next, retiredAt, updatedAt: nowIso() }).where(eq(units.id, before.id)).returning();
-    if (parsed.data.odometer !== undefined) await addReading(tx, user, before.id, "odometer", parsed.data.odometer, "odometer");
-    if (parsed.data.engineHours !== undefined) await addReading(tx, user, before.id, "engine_hours", parsed.data.engineHours, "engineHours");
+    if (parsed.data.odometer !== undefined) await recordFormReading(tx, user, { unitId: before.id, kind: "odometer", value: parsed.data.odometer, field: "odometer" });
+    if (parsed.data.engineHours !== undefined) await recordFormReading(tx, user, { unitId: before.id, kind: "engine_hours", value: parsed.data.engineHours, field: "engineHours" });
     if (Object.keys(changed).length) {
       await recordAudit(tx, user, { action: "unit.edited", entityType: "unit", entityId: before.id, accountId: before.accountId, detail: { unit: before.unitNumber, ...changed } });
     }

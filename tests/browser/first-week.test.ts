@@ -304,6 +304,25 @@ describe("the first week of a new shop, from an empty database", () => {
     expect(text).toContain("Replaced the brake chamber; leak-down test passed.");
     expect(await writer.getByTestId("invoice-document").innerText()).toContain("Millbrook Diesel & Hydraulic");
     await screenshot(writer, "first-week-10-invoice-desktop");
+  });
+
+  it("the week's lists: the writer's units and work orders, the foreman's reports on his phone", async () => {
+    await writer.goto("/units");
+    expect(await writer.getByTestId("unit-row").count()).toBe(4);
+    await screenshot(writer, "first-week-11-units-desktop");
+    await writer.goto("/work-orders");
+    expect(await writer.getByTestId("work-order-list").innerText()).toContain("W-1001");
+    await screenshot(writer, "first-week-12-work-orders-desktop");
+    const foreman = await person(PHONE);
+    await foreman.goto("/sign-in");
+    await foreman.getByLabel("E-mail").fill("tom@harrow-creek.example");
+    await foreman.getByLabel("Password").fill("tom-drives-the-plow");
+    await foreman.getByRole("button", { name: "Sign in" }).click();
+    await foreman.waitForURL((u) => u.pathname === "/fleet");
+    await foreman.goto("/fleet/reports");
+    await foreman.getByTestId("report-status").getByText("Checked in at the shop on W-1001").waitFor();
+    expect(await foreman.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+    await screenshot(foreman, "first-week-13-reports-foreman-phone");
     for (const c of contexts) await c.close();
   });
 });
