@@ -89,7 +89,7 @@ export default async function WorkOrdersPage({ searchParams }: { searchParams: P
                     </Link>
                     <span className="block text-ink-soft">{w.title}</span>
                   </td>
-                  <td className="px-3 py-2 font-semibold">{w.unitNumber}</td>
+                  <td className="px-3 py-2 font-semibold whitespace-nowrap">{w.unitNumber}</td>
                   <td className="px-3 py-2">{w.accountName}</td>
                   <td className="px-3 py-2">
                     <StatusPill status={w.status} size="sm" />
