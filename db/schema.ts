@@ -2,12 +2,14 @@ import { relations, sql } from "drizzle-orm";
 import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 import {
   DECISIONS,
+  INSPECTION_BASES,
   INVOICE_STATUSES,
   LINE_KINDS,
   LINE_STATES,
   METER_KINDS,
   PAYMENT_METHODS,
   ROLES,
+  SERVICE_REQUEST_STATUSES,
   SEVERITIES,
   VERDICTS,
   WORK_ORDER_STATUSES,
@@ -79,6 +81,8 @@ export const accounts = sqliteTable("accounts", {
   overrunFloorCents: integer("overrun_floor_cents").notNull().default(1_000),
   shopSuppliesExempt: bool("shop_supplies_exempt").notNull().default(false),
   notes: text("notes").notNull().default(""),
+  // Archived accounts keep their history but leave every list and cannot check units in.
+  archivedAt: text("archived_at"),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
 });
@@ -110,6 +114,9 @@ export const users = sqliteTable(
     signingLimitCents: integer("signing_limit_cents"),
     phone: text("phone").notNull().default(""),
     active: bool("active").notNull().default(true),
+    // Sessions carry the version they were signed in under; raising it (a password
+    // reset or change) ends every older session at its next request.
+    sessionVersion: integer("session_version").notNull().default(0),
     lastSignInAt: text("last_sign_in_at"),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
@@ -132,15 +139,20 @@ export const units = sqliteTable(
     description: text("description").notNull(),
     plate: text("plate").notNull().default(""),
     lastInspectionOn: text("last_inspection_on"),
+    // 49 CFR 396.17: "periodic" counts 12 months from the day, "state" from the end of the month (396.17(f)).
+    inspectionBasis: text("inspection_basis", { enum: INSPECTION_BASES }),
     inspectionDueOn: text("inspection_due_on"),
     // Key-off drain this unit's maker accepts, in mA; null means the default figure.
     keyOffDrainLimitMa: integer("key_off_drain_limit_ma"),
     notes: text("notes").notNull().default(""),
+    // Retired units stay in history (visits, invoices) and leave every list.
+    retiredAt: text("retired_at"),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
   (t) => [
-    uniqueIndex("units_account_number_unique").on(t.accountId, t.unitNumber),
+    // A fleet may give a retired unit's number to its replacement.
+    uniqueIndex("units_account_number_unique").on(t.accountId, t.unitNumber).where(sql`retired_at is null`),
     index("units_vin_idx").on(t.vin),
   ],
 );
@@ -190,6 +202,7 @@ export const workOrders = sqliteTable(
     index("work_orders_account_status_idx").on(t.accountId, t.status),
     index("work_orders_unit_idx").on(t.unitId),
     index("work_orders_tech_idx").on(t.assignedTechId),
+    index("work_orders_opened_idx").on(t.openedAt),
   ],
 );
 
@@ -254,6 +267,7 @@ export const photos = sqliteTable(
     workOrderId: text("work_order_id").references(() => workOrders.id),
     findingId: text("finding_id").references(() => findings.id, { onDelete: "set null" }),
     occurrenceId: text("occurrence_id").references(() => occurrences.id, { onDelete: "set null" }),
+    serviceRequestId: text("service_request_id").references(() => serviceRequests.id, { onDelete: "set null" }),
     fileKey: text("file_key").notNull(),
     fileUrl: text("file_url").notNull(),
     thumbKey: text("thumb_key"),
@@ -638,6 +652,8 @@ export const mailOutbox = sqliteTable(
     claimedAt: text("claimed_at"),
     lastError: text("last_error"),
     sentAt: text("sent_at"),
+    // The message carries a single-use sign-in link: its link is kept without the token, and its body is dropped once sent.
+    secret: bool("secret").notNull().default(false),
     createdAt: createdAt(),
   },
   (t) => [
@@ -648,6 +664,97 @@ export const mailOutbox = sqliteTable(
 );
 
 export type MailOutboxRow = typeof mailOutbox.$inferSelect;
+
+/**
+ * An invitation to sign in: the person sets their own password from an e-mailed
+ * single-use link. Only the SHA-256 of the link's token is kept; re-sending
+ * makes a new token (the old link stops working) and a new expiry.
+ */
+export const invitations = sqliteTable(
+  "invitations",
+  {
+    id: id(),
+    email: text("email").notNull(),
+    name: text("name").notNull(),
+    role: text("role", { enum: ROLES }).notNull(),
+    accountId: text("account_id").references(() => accounts.id),
+    signingLimitCents: integer("signing_limit_cents"),
+    tokenHash: text("token_hash").notNull(),
+    expiresAt: text("expires_at").notNull(),
+    sentAt: text("sent_at").notNull(),
+    invitedBy: text("invited_by").references(() => users.id),
+    acceptedAt: text("accepted_at"),
+    acceptedUserId: text("accepted_user_id").references(() => users.id),
+    withdrawnAt: text("withdrawn_at"),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex("invitations_token_unique").on(t.tokenHash),
+    // One invitation waiting per address: invite again by re-sending it.
+    uniqueIndex("invitations_one_live_per_email").on(t.email).where(sql`accepted_at is null and withdrawn_at is null`),
+    index("invitations_account_idx").on(t.accountId),
+  ],
+);
+
+/** A "forgot password" link: SHA-256 of the token only, one hour, used once. */
+export const passwordResets = sqliteTable(
+  "password_resets",
+  {
+    id: id(),
+    userId: text("user_id").notNull().references(() => users.id, { onDelete: "cascade" }),
+    tokenHash: text("token_hash").notNull(),
+    expiresAt: text("expires_at").notNull(),
+    usedAt: text("used_at"),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("password_resets_token_unique").on(t.tokenHash), index("password_resets_user_idx").on(t.userId, t.createdAt)],
+);
+
+/**
+ * A defect report from the fleet, in the shape of a driver's vehicle
+ * inspection report (49 CFR 396.11): which unit, what is wrong, who reported it.
+ * Open until the shop checks the unit in (scheduled), closed once fixed.
+ */
+export const serviceRequests = sqliteTable(
+  "service_requests",
+  {
+    id: id(),
+    accountId: text("account_id").notNull().references(() => accounts.id),
+    unitId: text("unit_id").notNull().references(() => units.id),
+    reportedBy: text("reported_by").references(() => users.id),
+    // The reporter's name as signed on the report (396.11(a)(3)); kept if the person leaves.
+    reporterName: text("reporter_name").notNull(),
+    status: text("status", { enum: SERVICE_REQUEST_STATUSES }).notNull().default("open"),
+    odometer: real("odometer"),
+    engineHours: real("engine_hours"),
+    note: text("note").notNull().default(""),
+    workOrderId: text("work_order_id").references(() => workOrders.id),
+    scheduledAt: text("scheduled_at"),
+    closedAt: text("closed_at"),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    index("service_requests_account_status_idx").on(t.accountId, t.status, t.createdAt),
+    index("service_requests_status_idx").on(t.status, t.createdAt),
+    index("service_requests_unit_idx").on(t.unitId),
+    index("service_requests_wo_idx").on(t.workOrderId),
+  ],
+);
+
+export const serviceRequestDefects = sqliteTable(
+  "service_request_defects",
+  {
+    id: id(),
+    requestId: text("request_id").notNull().references(() => serviceRequests.id, { onDelete: "cascade" }),
+    position: integer("position").notNull().default(0),
+    // One of the parts 396.11(a)(2) names (brakes, steering, lights …), or empty.
+    area: text("area").notNull().default(""),
+    description: text("description").notNull(),
+    outOfService: bool("out_of_service").notNull().default(false),
+  },
+  (t) => [index("service_request_defects_request_idx").on(t.requestId, t.position)],
+);
 
 export const accountsRelations = relations(accounts, ({ many }) => ({
   users: many(users),
@@ -708,3 +815,5 @@ export type InvoiceLine = typeof invoiceLines.$inferSelect;
 export type Payment = typeof payments.$inferSelect;
 export type Occurrence = typeof occurrences.$inferSelect;
 export type ApiToken = typeof apiTokens.$inferSelect;
+export type Invitation = typeof invitations.$inferSelect;
+export type ServiceRequest = typeof serviceRequests.$inferSelect;

@@ -50,3 +50,22 @@ export function addDays(date: string, days: number): string {
 export function daysBetween(a: string, b: string): number {
   return Math.round((Date.parse(`${b}T00:00:00Z`) - Date.parse(`${a}T00:00:00Z`)) / 86_400_000);
 }
+
+/** A wall-clock time typed in a form ("2026-05-04T16:30") in a time zone, as an ISO instant; null if it is not one. */
+export function localDateTimeIso(value: string, timeZone: string): string | null {
+  const m = /^(\d{4})-(\d{2})-(\d{2})T(\d{2}):(\d{2})$/.exec(value);
+  if (!m || !isCalendarDate(`${m[1]}-${m[2]}-${m[3]}`)) return null;
+  const [, y, mo, d, h, mi] = m.map(Number) as [number, number, number, number, number, number];
+  if (h > 23 || mi > 59) return null;
+  const guess = Date.UTC(y, mo - 1, d, h, mi);
+  let instant = guess - offsetMinutes(guess, timeZone) * 60_000;
+  instant = guess - offsetMinutes(instant, timeZone) * 60_000;
+  return new Date(instant).toISOString();
+}
+
+/** The form value ("YYYY-MM-DDTHH:mm") of an instant in a time zone, for a datetime-local input. */
+export function toLocalDateTimeInput(iso: string, timeZone: string): string {
+  const parts = new Intl.DateTimeFormat("en-CA", { timeZone, hourCycle: "h23", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit" }).formatToParts(new Date(iso));
+  const get = (type: string) => parts.find((p) => p.type === type)?.value ?? "00";
+  return `${get("year")}-${get("month")}-${get("day")}T${get("hour")}:${get("minute")}`;
+}

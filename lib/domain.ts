@@ -97,6 +97,22 @@ export const VERDICT_LABELS: Record<Verdict, string> = {
 export const METER_KINDS = ["odometer", "engine_hours"] as const;
 export type MeterKind = (typeof METER_KINDS)[number];
 
+export const INSPECTION_BASES = ["periodic", "state"] as const;
+export type InspectionBasisValue = (typeof INSPECTION_BASES)[number];
+export const INSPECTION_BASIS_LABELS: Record<InspectionBasisValue, string> = {
+  periodic: "Periodic inspection, 12 months from the day (49 CFR 396.17(c))",
+  state: "State inspection program, 12 months from the end of the month (49 CFR 396.17(f))",
+};
+
+/** A defect report's life: waiting for the shop, on a visit, fixed. */
+export const SERVICE_REQUEST_STATUSES = ["open", "scheduled", "closed"] as const;
+export type ServiceRequestStatus = (typeof SERVICE_REQUEST_STATUSES)[number];
+export const SERVICE_REQUEST_STATUS_LABELS: Record<ServiceRequestStatus, string> = {
+  open: "Reported, waiting for the shop",
+  scheduled: "Checked in at the shop",
+  closed: "Fixed",
+};
+
 export const INVOICE_STATUSES = ["open", "paid", "void"] as const;
 export type InvoiceStatus = (typeof INVOICE_STATUSES)[number];
 

@@ -70,3 +70,12 @@ export function technicianLabel(assigned: string | null, clocked: string | null 
   if (assigned) return assigned;
   return clocked ? `${clocked} (clocked on it, not assigned)` : "not assigned";
 }
+
+/** A complaint as a visit's title: the first sentence, cut at a word near `max` characters with an ellipsis. */
+export function shortTitle(text: string, max = 70): string {
+  const first = text.replace(/\s+\(reported by [^)]*\)\s*$/, "").split(/(?<=[.;!?])\s/)[0]!.trim().replace(/[.;]$/, "");
+  if (first.length <= max) return first;
+  const cut = first.slice(0, max);
+  const space = cut.lastIndexOf(" ");
+  return `${(space > max / 2 ? cut.slice(0, space) : cut).replace(/[,;:\s]+$/, "")}…`;
+}

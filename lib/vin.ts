@@ -143,3 +143,28 @@ export function withCheckDigit(vin17: string): string {
   const at = CHECK_DIGIT_POSITION - 1;
   return vin.slice(0, at) + digit + vin.slice(at + 1);
 }
+
+export type VinLiveState = "empty" | "typing" | "ok" | "error";
+
+/**
+ * What a form shows beside a VIN as it is typed: nothing yet, how far along
+ * (no complaint about a VIN not finished), a character no VIN may hold the
+ * moment it appears, and at 17 characters the check digit verdict of
+ * 49 CFR 565.15(c), naming the digit position 9 should carry when it is wrong.
+ */
+export function vinLiveCheck(input: string): { state: VinLiveState; message: string; expected?: string } {
+  const vin = normalizeVin(input);
+  if (vin.length === 0) return { state: "empty", message: "17 characters, checked as you type (49 CFR 565.15(c))." };
+  if (vin.length < VIN_LENGTH) {
+    for (let i = 0; i < vin.length; i += 1) {
+      if (vinCharValue(vin.charAt(i)) === null) {
+        const result = validateVin(vin.padEnd(VIN_LENGTH, "0"));
+        if (!result.ok && result.reason === "characters") return { state: "error", message: result.message };
+      }
+    }
+    return { state: "typing", message: `${vin.length} of ${VIN_LENGTH} characters.` };
+  }
+  const result = validateVin(vin);
+  if (result.ok) return { state: "ok", message: `Check digit ${vin.charAt(CHECK_DIGIT_POSITION - 1)} matches (49 CFR 565.15(c)).` };
+  return { state: "error", message: result.message, ...(result.expected ? { expected: result.expected } : {}) };
+}

@@ -11,7 +11,7 @@ export default async function FleetLayout({ children }: { children: React.ReactN
   if (isStaff(user) || !user.accountId) redirect("/floor");
   const accountName = await getAccountName(user.accountId);
   return (
-    <AppShell home="/fleet" orgName={accountName} nav={fleetNav(user.role)} user={user} tokensHref="/fleet/settings/tokens">
+    <AppShell home="/fleet" orgName={accountName} nav={fleetNav(user.role)} user={user} meHref="/fleet/me">
       {children}
     </AppShell>
   );

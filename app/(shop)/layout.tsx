@@ -11,7 +11,7 @@ export default async function ShopLayout({ children }: { children: React.ReactNo
   if (!isStaff(user)) forbidden();
   const settings = await getShopSettings();
   return (
-    <AppShell home="/floor" orgName={settings.shopName} nav={shopNav(user.role)} user={user} tokensHref="/settings/tokens">
+    <AppShell home="/floor" orgName={settings.shopName} nav={shopNav(user.role)} user={user} meHref="/me">
       {children}
     </AppShell>
   );

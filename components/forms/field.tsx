@@ -41,3 +41,32 @@ export function FormMessage({ result }: { result: { ok: boolean; error?: string 
     </p>
   );
 }
+
+/** A labelled select with its error beside it, like Field. Options are [value, label] pairs. */
+export function SelectField({
+  label,
+  name,
+  options,
+  error,
+  className = "",
+  ...props
+}: ComponentProps<"select"> & { label: string; name?: string; options: readonly (readonly [string, string])[]; error?: string }) {
+  const errorId = `${name ?? label}-error`;
+  return (
+    <label className={`flex flex-col gap-1 ${className}`}>
+      <span className="font-semibold">{label}</span>
+      <select name={name} aria-invalid={error ? true : undefined} aria-describedby={error ? errorId : undefined} className={inputClass} {...props}>
+        {options.map(([value, text]) => (
+          <option key={value} value={value}>
+            {text}
+          </option>
+        ))}
+      </select>
+      {error ? (
+        <span id={errorId} className="text-sm font-semibold text-rust-deep">
+          {error}
+        </span>
+      ) : null}
+    </label>
+  );
+}

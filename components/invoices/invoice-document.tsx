@@ -62,6 +62,24 @@ export function InvoiceDocument({ invoice: inv, timeZone }: { invoice: InvoiceDe
         ) : null}
       </div>
 
+      {inv.unit?.concerns?.length ? (
+        <section className="border-b border-rule py-3 text-sm" data-testid="invoice-three-cs">
+          <h2 className="text-xs font-bold tracking-wide text-ink-faint uppercase">Work performed</h2>
+          <ol className="mt-1 flex flex-col gap-2">
+            {inv.unit.concerns.map((c, i) => (
+              <li key={i} className="grid grid-cols-[6.5rem_1fr] gap-x-2">
+                <span className="text-ink-faint">Complaint {i + 1}</span>
+                <span className="font-semibold">{c.complaint}</span>
+                <span className="text-ink-faint">Cause</span>
+                <span>{c.cause || "—"}</span>
+                <span className="text-ink-faint">Correction</span>
+                <span>{c.correction || "—"}</span>
+              </li>
+            ))}
+          </ol>
+        </section>
+      ) : null}
+
       <table className="mt-3 w-full text-sm">
         <caption className="sr-only">Lines</caption>
         <thead>

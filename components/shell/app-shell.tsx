@@ -14,11 +14,11 @@ export function AppShell({
   orgName,
   nav,
   user,
-  tokensHref,
+  meHref,
   children,
 }: {
   home: string;
-  tokensHref: string;
+  meHref: string;
   orgName: string;
   nav: NavItem[];
   user: { name: string; role: Role };
@@ -41,12 +41,14 @@ export function AppShell({
             ))}
           </nav>
           <div className="ml-auto flex items-center gap-2 text-sm">
-            <span className="hidden text-right leading-tight sm:block">
-              <span className="block font-semibold">{user.name}</span>
-              <span className="block text-ink-faint">{ROLE_LABELS[user.role]}</span>
-            </span>
-            <Link href={tokensHref} className="hidden min-h-touch items-center px-2 text-sm text-ink-soft sm:flex">
-              API tokens
+            {/* The name is read from the visible text (with a spoken lead-in), so what people see is what a voice user says. */}
+            <Link href={meHref} className="flex min-h-touch flex-col justify-center px-1 text-right leading-tight no-underline">
+              <span className="sr-only">Your sign-in: </span>
+              <span className="hidden font-semibold sm:block">{user.name}</span>
+              <span className="hidden text-ink-faint sm:block">{ROLE_LABELS[user.role]}</span>
+              <span className="font-semibold sm:hidden">
+                You<span className="sr-only">, {user.name}</span>
+              </span>
             </Link>
             <SignOutButton />
           </div>

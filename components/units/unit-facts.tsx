@@ -10,6 +10,8 @@ export interface UnitFactsData {
   plate: string;
   accountName: string;
   inspectionDueOn: string | null;
+  inspectionBasis?: "periodic" | "state" | null;
+  keyOffDrainLimitMa?: number | null;
 }
 
 /** Days from today to the annual inspection (49 CFR 396.17: at least every 12 months). */
@@ -46,7 +48,14 @@ export function UnitFacts({ unit, today }: { unit: UnitFactsData; today: string 
       <dt className="text-ink-faint">Annual inspection</dt>
       <dd className={inspection?.overdue ? "font-bold text-rust-deep" : ""}>
         {unit.inspectionDueOn ? `${formatDate(unit.inspectionDueOn)} (${inspection?.text})` : "—"}
+        {unit.inspectionBasis ? <span className="block text-sm text-ink-faint">{unit.inspectionBasis === "state" ? "State program, 49 CFR 396.17(f)" : "Periodic, 49 CFR 396.17(c)"}</span> : null}
       </dd>
+      {unit.keyOffDrainLimitMa ? (
+        <>
+          <dt className="text-ink-faint">Accepted key-off drain</dt>
+          <dd className="figures">{unit.keyOffDrainLimitMa} mA</dd>
+        </>
+      ) : null}
     </dl>
   );
 }

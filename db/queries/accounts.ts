@@ -1,18 +1,20 @@
-import { and, asc, desc, eq } from "drizzle-orm";
-import { getDb, writeTx } from "@/db/client";
-import { accounts, auditLog, users } from "@/db/schema";
+import { and, asc, desc, eq, isNull, sql } from "drizzle-orm";
+import { getDb } from "@/db/client";
+import { accountContacts, accounts, auditLog, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { notFound } from "@/lib/http/problem";
-import { nowIso } from "@/lib/ids";
-import type { AccountSettingsInput } from "@/lib/validation/account";
-import { recordAudit } from "./audit";
+import { invalidInput } from "@/lib/http/problem";
+import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
 import { budgetUsedCents, currentFiscalYear } from "./estimate-context";
 import { scopedTo } from "./scope";
 
-/** The fleet accounts the caller may see (every one for staff, their own for fleet people), with budget used this fiscal year. */
-export async function listAccountsWithBudget(user: Pick<SessionUser, "role" | "accountId">) {
+/** The fleet accounts the caller may see (every one for staff, their own for fleet people), with budget used this fiscal year. Archived ones only when asked. */
+export async function listAccountsWithBudget(user: Pick<SessionUser, "role" | "accountId">, opts: { archived?: boolean } = {}) {
   const db = getDb();
-  const rows = await db.select().from(accounts).where(scopedTo(accounts.id, user)).orderBy(asc(accounts.name));
+  const rows = await db
+    .select()
+    .from(accounts)
+    .where(and(scopedTo(accounts.id, user), opts.archived ? sql`${accounts.archivedAt} is not null` : isNull(accounts.archivedAt)))
+    .orderBy(asc(accounts.name));
   return Promise.all(
     rows.map(async (a) => {
       const bounds = currentFiscalYear(a);
@@ -21,86 +23,110 @@ export async function listAccountsWithBudget(user: Pick<SessionUser, "role" | "a
   );
 }
 
-/** One account's settings page, or null when it does not exist or is outside the caller's scope. */
+/** Names for pickers (check-in, invitations, units): accounts still in use. */
+export async function accountChoices() {
+  return getDb().select({ id: accounts.id, name: accounts.name }).from(accounts).where(isNull(accounts.archivedAt)).orderBy(asc(accounts.name));
+}
+
+/** The account's settings as the API shows them (cents, plain percents), with its budget this fiscal year. */
+function apiView(a: typeof accounts.$inferSelect, usedCents: number, fiscalYear: string) {
+  return {
+    id: a.id,
+    name: a.name,
+    billingEmail: a.billingEmail,
+    address: a.address,
+    phone: a.phone,
+    taxExempt: a.taxExempt,
+    taxExemptCertificate: a.taxExemptCertificate,
+    taxRatePct: a.taxRateMilliPct / 1000,
+    poRequired: a.poRequired,
+    termsDays: a.paymentTermsDays,
+    fiscalYearStartMonth: a.fiscalYearStartMonth,
+    fiscalYear,
+    budgetCents: a.repairBudgetCents,
+    budgetRemainingCents: a.repairBudgetCents === null ? null : Math.max(0, a.repairBudgetCents - usedCents),
+    standingAuthorisationCents: a.standingAuthorisationCents,
+    overrunPercent: a.overrunPercentMilli / 1000,
+    overrunFloorCents: a.overrunFloorCents,
+    overrunCapCents: a.overrunCapCents,
+    shopSuppliesExempt: a.shopSuppliesExempt,
+    archived: a.archivedAt !== null,
+    archivedAt: a.archivedAt,
+    updatedAt: a.updatedAt,
+  };
+}
+
+/** GET /api/v1/accounts: the shop sees every account, a fleet person their own; paged by name. */
+export async function listAccountsForApi(user: SessionUser, opts: PageQuery & { archived?: boolean }) {
+  const after = decodeCursor(opts.cursor, 2);
+  if (opts.cursor && !after) throw invalidInput([{ path: "cursor", message: "Not a cursor this API issued." }]);
+  const db = getDb();
+  const rows = await db
+    .select()
+    .from(accounts)
+    .where(
+      and(
+        scopedTo(accounts.id, user),
+        opts.archived ? undefined : isNull(accounts.archivedAt),
+        after ? sql`(${accounts.name}, ${accounts.id}) > (${String(after[0])}, ${String(after[1])})` : undefined,
+      ),
+    )
+    .orderBy(asc(accounts.name), asc(accounts.id))
+    .limit(opts.limit + 1);
+  const { page, nextCursor } = paginate(rows, opts.limit, (r) => [r.name, r.id]);
+  const out = await Promise.all(
+    page.map(async (a) => {
+      const bounds = currentFiscalYear(a);
+      return apiView(a, await budgetUsedCents(db, a.id, bounds), bounds.fy.label);
+    }),
+  );
+  return { accounts: out, nextCursor };
+}
+
+/** One account with its contacts, scoped: another account's id is null (404). */
+export async function getAccountForApi(user: SessionUser, id: string) {
+  const db = getDb();
+  const [a] = await db.select().from(accounts).where(and(eq(accounts.id, id), scopedTo(accounts.id, user))).limit(1);
+  if (!a) return null;
+  const bounds = currentFiscalYear(a);
+  const [used, contacts] = await Promise.all([budgetUsedCents(db, a.id, bounds), contactsOf(a.id)]);
+  return { ...apiView(a, used, bounds.fy.label), contacts: contacts.map((c) => ({ id: c.id, name: c.name, role: c.title, email: c.email, phone: c.phone, billing: c.isBilling })) };
+}
+
+export async function contactsOf(accountId: string) {
+  return getDb()
+    .select({ id: accountContacts.id, name: accountContacts.name, title: accountContacts.title, email: accountContacts.email, phone: accountContacts.phone, isBilling: accountContacts.isBilling })
+    .from(accountContacts)
+    .where(eq(accountContacts.accountId, accountId))
+    .orderBy(desc(accountContacts.isBilling), asc(accountContacts.createdAt));
+}
+
+/** Everything the shop's account page shows, or null when it does not exist or is outside the caller's scope. */
 export async function accountSettingsPage(user: Pick<SessionUser, "role" | "accountId">, accountId: string) {
   const db = getDb();
   const [account] = await db.select().from(accounts).where(and(eq(accounts.id, accountId), scopedTo(accounts.id, user))).limit(1);
   if (!account) return null;
   const bounds = currentFiscalYear(account);
-  const [people, changes, used] = await Promise.all([
+  const [people, changes, used, contacts] = await Promise.all([
     db
       .select({ id: users.id, name: users.name, email: users.email, role: users.role, signingLimitCents: users.signingLimitCents, active: users.active })
       .from(users)
       .where(eq(users.accountId, accountId))
       .orderBy(asc(users.role), asc(users.name)),
     db
-      .select({ at: auditLog.at, actor: auditLog.actorLabel, action: auditLog.action, detail: auditLog.detail })
+      .select({ id: auditLog.id, at: auditLog.at, actor: auditLog.actorLabel, action: auditLog.action, detail: auditLog.detail })
       .from(auditLog)
       .where(and(eq(auditLog.accountId, accountId), eq(auditLog.entityType, "account")))
       .orderBy(desc(auditLog.at))
       .limit(30),
     budgetUsedCents(db, accountId, bounds),
+    contactsOf(accountId),
   ]);
-  return { account, people, changes, budgetUsedCents: used, fiscalYear: bounds.fy.label };
+  return { account, people, changes, contacts, budgetUsedCents: used, fiscalYear: bounds.fy.label };
 }
 
-const FIELDS = [
-  ["standingAuthorisationCents", "standingAuthorisation"],
-  ["repairBudgetCents", "repairBudget"],
-  ["fiscalYearStartMonth", "fiscalYearStartMonth"],
-  ["overrunPercentMilli", "overrunPercent"],
-  ["overrunCapCents", "overrunCap"],
-  ["overrunFloorCents", "overrunFloor"],
-  ["taxExempt", "taxExempt"],
-  ["taxExemptCertificate", "taxExemptCertificate"],
-  ["taxRateMilliPct", "taxRate"],
-  ["poRequired", "poRequired"],
-  ["paymentTermsDays", "paymentTermsDays"],
-  ["shopSuppliesExempt", "shopSuppliesExempt"],
-] as const;
-
-/** Changes an account's limits and terms; the audit row lists each field's old and new value. */
-export async function updateAccountSettings(user: SessionUser, input: AccountSettingsInput) {
-  return writeTx(async (tx) => {
-    const [before] = await tx.select().from(accounts).where(eq(accounts.id, input.accountId)).limit(1);
-    if (!before) throw notFound("That account");
-    const next = {
-      standingAuthorisationCents: input.standingAuthorisation,
-      repairBudgetCents: input.repairBudget,
-      fiscalYearStartMonth: input.fiscalYearStartMonth,
-      overrunPercentMilli: input.overrunPercent,
-      overrunCapCents: input.overrunCap,
-      overrunFloorCents: input.overrunFloor,
-      taxExempt: input.taxExempt,
-      taxExemptCertificate: input.taxExemptCertificate || null,
-      taxRateMilliPct: input.taxRate,
-      poRequired: input.poRequired,
-      paymentTermsDays: input.paymentTermsDays,
-      shopSuppliesExempt: input.shopSuppliesExempt,
-    };
-    const changed = Object.fromEntries(
-      FIELDS.filter(([column]) => before[column] !== next[column]).map(([column]) => [column, { from: before[column], to: next[column] }]),
-    );
-    if (Object.keys(changed).length === 0) return { changed: 0 };
-    await tx.update(accounts).set({ ...next, updatedAt: nowIso() }).where(eq(accounts.id, before.id));
-    await recordAudit(tx, user, { action: "account.settings", entityType: "account", entityId: before.id, accountId: before.id, detail: changed });
-    return { changed: Object.keys(changed).length };
-  });
-}
-
-/** Sets an approver's signing limit; audited on the approver's account. */
-export async function setSigningLimit(user: SessionUser, userId: string, cents: number) {
-  return writeTx(async (tx) => {
-    const [person] = await tx.select().from(users).where(and(eq(users.id, userId), eq(users.role, "approver"))).limit(1);
-    if (!person || !person.accountId) throw notFound("That approver");
-    if (person.signingLimitCents === cents) return;
-    await tx.update(users).set({ signingLimitCents: cents, updatedAt: nowIso() }).where(eq(users.id, userId));
-    await recordAudit(tx, user, {
-      action: "account.signing_limit",
-      entityType: "account",
-      entityId: person.accountId,
-      accountId: person.accountId,
-      detail: { approver: person.name, signingLimitCents: { from: person.signingLimitCents, to: cents } },
-    });
-  });
+/** Whether any account exists yet (the empty first week shows a "start here" card). */
+export async function hasAccounts(): Promise<boolean> {
+  const [row] = await getDb().select({ id: accounts.id }).from(accounts).limit(1);
+  return Boolean(row);
 }

@@ -1,4 +1,5 @@
-import type { Tx } from "@/db/client";
+import { and, desc, eq } from "drizzle-orm";
+import { getDb, type Tx } from "@/db/client";
 import { auditLog } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { nowIso } from "@/lib/ids";
@@ -19,4 +20,14 @@ export async function recordAudit(
     accountId: entry.accountId ?? null,
     detail: entry.detail ?? null,
   });
+}
+
+/** The latest audited changes of one thing, newest first (shop pages only). */
+export async function auditTrail(entityType: string, entityId: string, limit = 30) {
+  return getDb()
+    .select({ id: auditLog.id, at: auditLog.at, actor: auditLog.actorLabel, action: auditLog.action, detail: auditLog.detail })
+    .from(auditLog)
+    .where(and(eq(auditLog.entityType, entityType), eq(auditLog.entityId, entityId)))
+    .orderBy(desc(auditLog.at))
+    .limit(limit);
 }

@@ -220,37 +220,47 @@ export async function deferredLinesForUnit(tx: Reader, unitId: string, exceptWor
     .orderBy(sql`${estimateLines.updatedAt} desc`);
 }
 
-/** Copies deferred lines from earlier visits into this work order as drafts, and marks them brought back. */
+/**
+ * Copies deferred lines of the unit's earlier visits into this work order as
+ * drafts, inside the caller's transaction, and marks them brought back. Used
+ * by the estimate editor and by check-in. Throws 404 if any id is not on offer.
+ */
+export async function copyDeferredLines(tx: Tx, user: SessionUser, wo: { id: string; unitId: string; accountId: string }, lineIds: string[], firstPosition: number) {
+  if (lineIds.length === 0) return 0;
+  const available = await deferredLinesForUnit(tx, wo.unitId, wo.id);
+  const picked = available.filter((r) => lineIds.includes(r.estimate_lines.id));
+  if (picked.length !== new Set(lineIds).size) throw notFound("One of those deferred lines");
+  let position = firstPosition;
+  const at = nowIso();
+  for (const { estimate_lines: old } of picked) {
+    await tx.insert(estimateLines).values({
+      workOrderId: wo.id,
+      position: position++,
+      kind: old.kind,
+      description: old.description,
+      partNumber: old.partNumber,
+      quantityMilli: old.quantityMilli,
+      unitPriceCents: old.unitPriceCents,
+      taxable: old.taxable,
+      coreChargeCents: old.coreChargeCents,
+      isDiagnosis: old.isDiagnosis,
+      laborRateId: old.laborRateId,
+      state: "draft",
+      deferredFromLineId: old.id,
+      createdBy: user.id,
+    });
+    await tx.update(estimateLines).set({ broughtBackAt: at }).where(eq(estimateLines.id, old.id));
+  }
+  await recordAudit(tx, user, { action: "line.brought_back", entityType: "work_order", entityId: wo.id, accountId: wo.accountId, detail: { lineIds } });
+  return picked.length;
+}
+
+/** The estimate editor's "bring back": deferred lines onto this open work order, after its own lines. */
 export async function bringBackDeferred(user: SessionUser, workOrderId: string, lineIds: string[]) {
   return writeTx(async (tx) => {
     const ctx = await loadEstimateContext(tx, user, workOrderId);
     assertOpen(ctx);
-    const available = await deferredLinesForUnit(tx, ctx.wo.unitId, ctx.wo.id);
-    const picked = available.filter((r) => lineIds.includes(r.estimate_lines.id));
-    if (picked.length !== lineIds.length) throw notFound("One of those deferred lines");
-    let position = Math.max(-1, ...ctx.lines.map((l) => l.position)) + 1;
-    const at = nowIso();
-    for (const { estimate_lines: old } of picked) {
-      await tx.insert(estimateLines).values({
-        workOrderId: ctx.wo.id,
-        position: position++,
-        kind: old.kind,
-        description: old.description,
-        partNumber: old.partNumber,
-        quantityMilli: old.quantityMilli,
-        unitPriceCents: old.unitPriceCents,
-        taxable: old.taxable,
-        coreChargeCents: old.coreChargeCents,
-        isDiagnosis: old.isDiagnosis,
-        laborRateId: old.laborRateId,
-        state: "draft",
-        deferredFromLineId: old.id,
-        createdBy: user.id,
-      });
-      await tx.update(estimateLines).set({ broughtBackAt: at }).where(eq(estimateLines.id, old.id));
-    }
-    await recordAudit(tx, user, { action: "line.brought_back", entityType: "work_order", entityId: ctx.wo.id, accountId: ctx.wo.accountId, detail: { lineIds } });
-    return picked.length;
+    return copyDeferredLines(tx, user, ctx.wo, lineIds, Math.max(-1, ...ctx.lines.map((l) => l.position)) + 1);
   });
 }
 

@@ -3,6 +3,7 @@ import { writeTx, writeTxThen, type InSameTx, type Reader, type Tx } from "@/db/
 import {
   accountContacts,
   accounts,
+  concerns,
   counters,
   estimateLines,
   invoiceLines,
@@ -25,7 +26,7 @@ import { conflict } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
 import { dueDateOf } from "@/lib/invoices/balance";
 import { buildInvoice, type BillableLine } from "@/lib/invoices/build";
-import type { BillTo, ShopSnapshot, UnitSnapshot } from "@/lib/invoices/snapshot";
+import type { BillTo, ShopSnapshot, ThreeCs, UnitSnapshot } from "@/lib/invoices/snapshot";
 import { recordAudit } from "./audit";
 import { loadWorkOrderRow, toAccountSettings, toShopSettings } from "./estimate-context";
 
@@ -53,6 +54,7 @@ export interface InvoiceSources {
   unit: Unit;
   lines: EstimateLine[];
   billingContact: string;
+  concerns: ThreeCs[];
 }
 
 /** The work order's invoice that is not void, if there is one (at most one: a unique index). */
@@ -68,15 +70,16 @@ export async function liveInvoiceOf(tx: Reader, workOrderId: string): Promise<In
 /** Everything an invoice is made from, read inside the caller's transaction. */
 export async function loadInvoiceSources(tx: Tx, user: Pick<SessionUser, "role" | "accountId">, workOrderId: string): Promise<InvoiceSources> {
   const wo = await loadWorkOrderRow(tx, user, workOrderId);
-  const [[account], [shop], [unit], lines, contacts] = await Promise.all([
+  const [[account], [shop], [unit], lines, contacts, threeCs] = await Promise.all([
     tx.select().from(accounts).where(eq(accounts.id, wo.accountId)).limit(1),
     tx.select().from(shopSettings).where(eq(shopSettings.id, 1)).limit(1),
     tx.select().from(units).where(eq(units.id, wo.unitId)).limit(1),
     tx.select().from(estimateLines).where(eq(estimateLines.workOrderId, wo.id)).orderBy(estimateLines.position, estimateLines.createdAt),
     tx.select({ name: accountContacts.name }).from(accountContacts).where(and(eq(accountContacts.accountId, wo.accountId), eq(accountContacts.isBilling, true))).limit(1),
+    tx.select({ complaint: concerns.complaint, cause: concerns.cause, correction: concerns.correction }).from(concerns).where(eq(concerns.workOrderId, wo.id)).orderBy(concerns.position, concerns.createdAt),
   ]);
   if (!account || !shop || !unit) throw new Error("work order without account, unit or shop settings");
-  return { wo, account, shop, unit, lines, billingContact: contacts[0]?.name ?? "" };
+  return { wo, account, shop, unit, lines, billingContact: contacts[0]?.name ?? "", concerns: threeCs };
 }
 
 export function snapshots(src: InvoiceSources): { billTo: BillTo; shop: ShopSnapshot; unit: UnitSnapshot } {
@@ -98,6 +101,7 @@ export function snapshots(src: InvoiceSources): { billTo: BillTo; shop: ShopSnap
       serialNumber: unit.serialNumber,
       workOrderNumber: wo.number,
       workOrderTitle: wo.title,
+      concerns: src.concerns,
     },
   };
 }

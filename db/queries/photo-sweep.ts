@@ -10,7 +10,7 @@ export interface SweptPhoto {
 
 /**
  * Removes, oldest first, photos uploaded before `cutoffIso` that never made it
- * onto a finding or an occurrence (a form left unsent, a finding deleted), and
+ * onto a finding, an occurrence or a defect report (a form left unsent, a finding deleted), and
  * returns their stored keys so the caller can delete the files.
  */
 export async function takeUnattachedPhotos(cutoffIso: string, limit: number): Promise<SweptPhoto[]> {
@@ -18,7 +18,7 @@ export async function takeUnattachedPhotos(cutoffIso: string, limit: number): Pr
     const rows = await tx
       .select({ id: photos.id, fileKey: photos.fileKey, thumbKey: photos.thumbKey })
       .from(photos)
-      .where(and(isNull(photos.findingId), isNull(photos.occurrenceId), lt(photos.createdAt, cutoffIso)))
+      .where(and(isNull(photos.findingId), isNull(photos.occurrenceId), isNull(photos.serviceRequestId), lt(photos.createdAt, cutoffIso)))
       .orderBy(asc(photos.createdAt))
       .limit(limit);
     const ids = rows.map((r) => r.id);

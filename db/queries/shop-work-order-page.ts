@@ -11,6 +11,18 @@ import { getShopSettings } from "./settings";
 import { timeSummary } from "./time-clock";
 import { workOrderView } from "./work-order-view";
 
+/** Deferred lines as the estimate editor and the check-in form offer them back. */
+export function deferredOffers(rows: Awaited<ReturnType<typeof deferredLinesForUnit>>) {
+  return rows.map(({ estimate_lines: l, work_orders: w }) => ({
+    id: l.id,
+    description: l.description,
+    amountCents: lineAmountCents(l.quantityMilli, l.unitPriceCents),
+    state: l.state as "held" | "declined",
+    woLabel: workOrderLabel(w.number),
+    decidedAt: l.updatedAt,
+  }));
+}
+
 /** Everything the shop's work-order page shows, in one place. */
 export async function loadShopWorkOrderPage(user: SessionUser, id: string) {
   const view = await workOrderView(user, id);
@@ -31,14 +43,7 @@ export async function loadShopWorkOrderPage(user: SessionUser, id: string) {
     shop: toShopSettings(shop),
     account: toAccountSettings(account!),
     taxExempt: account!.taxExempt,
-    deferred: deferred.map(({ estimate_lines: l, work_orders: w }) => ({
-      id: l.id,
-      description: l.description,
-      amountCents: lineAmountCents(l.quantityMilli, l.unitPriceCents),
-      state: l.state as "held" | "declined",
-      woLabel: workOrderLabel(w.number),
-      decidedAt: l.updatedAt,
-    })),
+    deferred: deferredOffers(deferred),
     // Extension lines fold into the diagnosis line they extend: one clock, one box.
     clockLines: view.lines
       .filter((l) => !l.extendsLineId)

@@ -1,6 +1,6 @@
 import { and, eq } from "drizzle-orm";
 import { writeTxThen, type InSameTx, type Tx } from "@/db/client";
-import { decisions, estimateLines, statusEvents, workOrders } from "@/db/schema";
+import { decisions, estimateLines, serviceRequests, statusEvents, workOrders } from "@/db/schema";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { STATUS_LABELS, workOrderLabel } from "@/lib/domain";
@@ -18,7 +18,7 @@ import { findWorkOrder } from "./work-order-detail";
  * (work goes back to Repairing after a failed final check); Released is final.
  * The same status again is allowed only with a note: an update for the customer.
  */
-export async function moveStatus(user: SessionUser, workOrderId: string, move: StatusMoveInput, notify?: InSameTx<{ workOrder: { id: string }; becameReady: boolean }>) {
+export async function moveStatus(user: SessionUser, workOrderId: string, move: StatusMoveInput, notify?: InSameTx<{ workOrder: { id: string }; becameReady: boolean; fixedRequestIds: string[] }>) {
   return writeTxThen(async (tx) => {
     const wo = await findWorkOrder(user, workOrderId, tx);
     if (!wo) throw notFound("That work order");
@@ -47,6 +47,15 @@ export async function moveStatus(user: SessionUser, workOrderId: string, move: S
       .values({ workOrderId: wo.id, status: move.status, note: move.note, byUserId: user.id, at })
       .returning({ id: statusEvents.id, status: statusEvents.status, note: statusEvents.note, at: statusEvents.at });
     if (!event) throw new Error("status event insert returned nothing");
+    // A driver's defect report on this visit reads "fixed" once the unit is ready (or released).
+    const fixed =
+      move.status === "ready" || released
+        ? await tx
+            .update(serviceRequests)
+            .set({ status: "closed", closedAt: at, updatedAt: at })
+            .where(and(eq(serviceRequests.workOrderId, wo.id), eq(serviceRequests.status, "scheduled")))
+            .returning({ id: serviceRequests.id })
+        : [];
     await recordAudit(tx, user, {
       action: "work_order.status",
       entityType: "work_order",
@@ -69,6 +78,7 @@ export async function moveStatus(user: SessionUser, workOrderId: string, move: S
         event: { ...event, by: user.name },
       },
       becameReady: move.status === "ready" && wo.status !== "ready",
+      fixedRequestIds: fixed.map((r) => r.id),
     };
   }, notify);
 }

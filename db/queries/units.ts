@@ -1,4 +1,4 @@
-import { aliasedTable, and, asc, desc, eq, gt, inArray, isNotNull, ne, or, sql } from "drizzle-orm";
+import { aliasedTable, and, asc, desc, eq, gt, inArray, isNotNull, isNull, ne, or, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { accounts, estimateLines, meterReadings, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -8,30 +8,62 @@ import { scopedTo } from "./scope";
 
 const openWo = aliasedTable(workOrders, "open_wo");
 
-export async function listUnits(user: SessionUser, opts: PageQuery & { inShop?: boolean }) {
+/**
+ * A search as FTS5 trigram terms: each word of 3+ characters must appear
+ * somewhere in the unit's number, VIN, serial, plate, description or account
+ * name (any 4+ characters of a VIN, anywhere in it, among them). Words of one
+ * or two characters are too short for a trigram and match the start of the
+ * unit number instead.
+ */
+export function searchTerms(q: string | undefined): { match: string | null; prefixes: string[] } {
+  const words = (q ?? "").split(/\s+/).filter(Boolean).slice(0, 8);
+  const long = words.filter((w) => w.length >= 3);
+  return { match: long.length ? long.map((w) => `"${w.replace(/"/g, '""')}"`).join(" ") : null, prefixes: words.filter((w) => w.length < 3) };
+}
+
+export interface UnitListOptions extends PageQuery {
+  inShop?: boolean;
+  retired?: boolean;
+  q?: string;
+  accountId?: string;
+}
+
+export async function listUnits(user: SessionUser, opts: UnitListOptions) {
   const after = decodeCursor(opts.cursor, 2);
   if (opts.cursor && !after) throw invalidInput([{ path: "cursor", message: "Not a cursor this API issued." }]);
   const [afterNumber, afterId] = after ?? [];
+  const { match, prefixes } = searchTerms(opts.q);
 
   const rows = await getDb()
     .select({
       id: units.id,
       unitNumber: units.unitNumber,
       vin: units.vin,
+      serialNumber: units.serialNumber,
+      year: units.year,
+      plate: units.plate,
       description: units.description,
       accountId: units.accountId,
+      accountName: accounts.name,
+      retiredAt: units.retiredAt,
       unitUpdatedAt: units.updatedAt,
       workOrderId: openWo.id,
+      workOrderNumber: openWo.number,
       openStatus: openWo.status,
       workOrderUpdatedAt: openWo.updatedAt,
       hasHistory: sql<number>`exists (select 1 from work_orders w where w.unit_id = ${units.id})`,
     })
     .from(units)
+    .innerJoin(accounts, eq(accounts.id, units.accountId))
     .leftJoin(openWo, and(eq(openWo.unitId, units.id), ne(openWo.status, "released")))
     .where(
       and(
         scopedTo(units.accountId, user),
+        opts.accountId ? eq(units.accountId, opts.accountId) : undefined,
+        opts.retired ? isNotNull(units.retiredAt) : isNull(units.retiredAt),
         opts.inShop ? isNotNull(openWo.id) : undefined,
+        match ? sql`${units.id} in (select unit_id from unit_search where unit_search match ${match})` : undefined,
+        ...prefixes.map((p) => sql`upper(${units.unitNumber}) like ${`${p.toUpperCase().replace(/[%_\\]/g, "\\$&")}%`} escape '\\'`),
         after
           ? or(
               gt(units.unitNumber, String(afterNumber)),
@@ -49,16 +81,24 @@ export async function listUnits(user: SessionUser, opts: PageQuery & { inShop?: 
       id: r.id,
       unitNumber: r.unitNumber,
       vin: r.vin,
+      serialNumber: r.serialNumber,
+      year: r.year,
+      plate: r.plate,
       description: r.description,
       accountId: r.accountId,
+      accountName: r.accountName,
+      retired: r.retiredAt !== null,
       // A unit out of the shop reads as its last visit's state: released.
       status: r.openStatus ?? (r.hasHistory ? "released" : null),
       workOrderId: r.workOrderId,
+      workOrderNumber: r.workOrderNumber,
       updatedAt: maxIso(r.unitUpdatedAt, r.workOrderUpdatedAt),
     })),
     nextCursor,
   };
 }
+
+export type UnitListItem = Awaited<ReturnType<typeof listUnits>>["units"][number];
 
 function maxIso(a: string, b: string | null): string {
   return b && b > a ? b : a;
@@ -79,8 +119,10 @@ export async function getUnitDetail(user: SessionUser, id: string) {
       accountId: units.accountId,
       accountName: accounts.name,
       lastInspectionOn: units.lastInspectionOn,
+      inspectionBasis: units.inspectionBasis,
       inspectionDueOn: units.inspectionDueOn,
       keyOffDrainLimitMa: units.keyOffDrainLimitMa,
+      retiredAt: units.retiredAt,
       updatedAt: units.updatedAt,
     })
     .from(units)

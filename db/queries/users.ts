@@ -13,9 +13,9 @@ const sessionColumns = {
   signingLimitCents: users.signingLimitCents,
 };
 
-export async function findActiveUser(id: string): Promise<Omit<SessionUser, "via"> | null> {
+export async function findActiveUser(id: string): Promise<(Omit<SessionUser, "via"> & { sessionVersion: number }) | null> {
   const [row] = await getDb()
-    .select(sessionColumns)
+    .select({ ...sessionColumns, sessionVersion: users.sessionVersion })
     .from(users)
     .where(and(eq(users.id, id), eq(users.active, true)))
     .limit(1);
@@ -24,7 +24,7 @@ export async function findActiveUser(id: string): Promise<Omit<SessionUser, "via
 
 export async function findUserForSignIn(email: string) {
   const [row] = await getDb()
-    .select({ ...sessionColumns, passwordHash: users.passwordHash, active: users.active })
+    .select({ ...sessionColumns, passwordHash: users.passwordHash, active: users.active, sessionVersion: users.sessionVersion })
     .from(users)
     .where(eq(users.email, email.trim().toLowerCase()))
     .limit(1);

@@ -1,9 +1,11 @@
-import { and, desc, eq, lt, ne, sql } from "drizzle-orm";
+import { and, desc, eq, gte, lt, ne, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { accounts, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
 import { invalidInput } from "@/lib/http/problem";
+import { addDays, startOfDayIso } from "@/lib/dates";
+import { env } from "@/lib/env";
 import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
 import { scopedTo } from "./scope";
 import { clockedTechNameSql } from "./time-clock";
@@ -16,6 +18,8 @@ export interface WorkOrderListItem {
   accountId: string;
   status: WorkOrderStatus;
   promisedAt: string | null;
+  openedAt: string;
+  releasedAt: string | null;
   updatedAt: string;
   title: string;
   unitNumber: string;
@@ -30,11 +34,27 @@ export interface WorkOrderListItem {
   outOfService: boolean;
 }
 
-/** Open work orders the caller may see (the Floor, the fleet's "in the shop" list, GET /api/v1/work-orders). */
+export interface WorkOrderFilters {
+  status?: WorkOrderStatus;
+  technicianId?: string;
+  accountId?: string;
+  /** Past visits too (released ones), not only those open now. */
+  all?: boolean;
+  /** Opened on or after / on or before these calendar dates, in the shop's time zone. */
+  openedFrom?: string;
+  openedTo?: string;
+}
+
+/**
+ * Work orders the caller may see, newest number first: by default the open
+ * ones (the Floor, the fleet's "in the shop" list, GET /api/v1/work-orders);
+ * with `all`, past visits too, for the shop's work-order list.
+ */
 export async function listOpenWorkOrders(
   user: SessionUser,
-  opts: PageQuery & { status?: WorkOrderStatus; technicianId?: string },
+  opts: PageQuery & WorkOrderFilters,
 ): Promise<{ workOrders: WorkOrderListItem[]; nextCursor: string | null }> {
+  const zone = env().APP_TIME_ZONE;
   const after = decodeCursor(opts.cursor, 1);
   if (opts.cursor && !after) throw invalidInput([{ path: "cursor", message: "Not a cursor this API issued." }]);
 
@@ -46,6 +66,8 @@ export async function listOpenWorkOrders(
       accountId: workOrders.accountId,
       status: workOrders.status,
       promisedAt: workOrders.promisedAt,
+      openedAt: workOrders.openedAt,
+      releasedAt: workOrders.releasedAt,
       updatedAt: workOrders.updatedAt,
       title: workOrders.title,
       unitNumber: units.unitNumber,
@@ -64,8 +86,11 @@ export async function listOpenWorkOrders(
     .where(
       and(
         scopedTo(workOrders.accountId, user),
-        opts.status ? eq(workOrders.status, opts.status) : ne(workOrders.status, "released"),
+        opts.status ? eq(workOrders.status, opts.status) : opts.all ? undefined : ne(workOrders.status, "released"),
         opts.technicianId ? eq(workOrders.assignedTechId, opts.technicianId) : undefined,
+        opts.accountId ? eq(workOrders.accountId, opts.accountId) : undefined,
+        opts.openedFrom ? gte(workOrders.openedAt, startOfDayIso(opts.openedFrom, zone)) : undefined,
+        opts.openedTo ? lt(workOrders.openedAt, startOfDayIso(addDays(opts.openedTo, 1), zone)) : undefined,
         after ? lt(workOrders.number, Number(after[0])) : undefined,
       ),
     )

@@ -48,6 +48,7 @@ export async function workOrderView(user: SessionUser, id: string) {
     accountName: wo.accountName,
     technicianName: wo.technicianName,
     clockedTechName: wo.clockedTechName,
+    assignedTechId: wo.assignedTechId,
     timeline,
     concerns,
     findings: findings.map((f) => ({ ...f, photos: f.photos })),

@@ -8,7 +8,7 @@ import type { SessionUser } from "./session-user";
 
 export type ActionResult<T> =
   | { ok: true; data: T }
-  | { ok: false; error: string; code: string; fieldErrors?: Record<string, string> };
+  | { ok: false; error: string; code: string; fieldErrors?: Record<string, string>; extra?: Record<string, unknown> };
 
 /** Form data to a plain object; repeated names become arrays. */
 export function formDataToObject(form: FormData): Record<string, unknown> {
@@ -31,32 +31,51 @@ export function guardedAction<S extends z.ZodType, T>(
   options: { roles: readonly Role[]; input: S },
   fn: (ctx: { user: SessionUser; input: z.output<S> }) => Promise<T>,
 ) {
-  return async (raw: z.input<S> | FormData): Promise<ActionResult<T>> => {
-    try {
+  return async (raw: z.input<S> | FormData): Promise<ActionResult<T>> =>
+    settle(async () => {
       const user = await currentUser();
       if (!user) return { ok: false, code: "unauthenticated", error: "Your session has ended. Sign in again." };
       if (!options.roles.includes(user.role)) {
         return { ok: false, code: "forbidden", error: "Your role may not do this." };
       }
-      const parsed = options.input.safeParse(raw instanceof FormData ? formDataToObject(raw) : raw);
-      if (!parsed.success) {
-        return {
-          ok: false,
-          code: "invalid_input",
-          error: "Some values are missing or not valid.",
-          fieldErrors: fieldErrorMap(parsed.error),
-        };
-      }
-      return { ok: true, data: await fn({ user, input: parsed.data }) };
-    } catch (error) {
-      // Let redirect() and notFound() from inside an action do their work.
-      unstable_rethrow(error);
-      if (error instanceof HttpError) {
-        const fieldErrors = error.errors ? Object.fromEntries(error.errors.map((e) => [e.path, e.message])) : undefined;
-        return { ok: false, code: error.code, error: error.detail, ...(fieldErrors ? { fieldErrors } : {}) };
-      }
-      console.error(error);
-      return { ok: false, code: "internal_error", error: "Something went wrong. Nothing was changed; try again." };
+      return parseThen(options.input, raw, (input) => fn({ user, input }));
+    });
+}
+
+/**
+ * The same for the few forms of people who are not signed in (first-run
+ * set-up, an invitation, a password reset): zod parse, then the body, whose
+ * token or empty database is what authorises it, checked in its transaction.
+ */
+export function publicAction<S extends z.ZodType, T>(options: { input: S }, fn: (ctx: { input: z.output<S> }) => Promise<T>) {
+  return async (raw: z.input<S> | FormData): Promise<ActionResult<T>> =>
+    settle(() => parseThen(options.input, raw, (input) => fn({ input })));
+}
+
+async function parseThen<S extends z.ZodType, T>(schema: S, raw: unknown, fn: (input: z.output<S>) => Promise<T>): Promise<ActionResult<T>> {
+  const parsed = schema.safeParse(raw instanceof FormData ? formDataToObject(raw) : raw);
+  if (!parsed.success) {
+    return {
+      ok: false,
+      code: "invalid_input",
+      error: "Some values are missing or not valid.",
+      fieldErrors: fieldErrorMap(parsed.error),
+    };
+  }
+  return { ok: true, data: await fn(parsed.data) };
+}
+
+async function settle<T>(run: () => Promise<ActionResult<T>>): Promise<ActionResult<T>> {
+  try {
+    return await run();
+  } catch (error) {
+    // Let redirect() and notFound() from inside an action do their work.
+    unstable_rethrow(error);
+    if (error instanceof HttpError) {
+      const fieldErrors = error.errors ? Object.fromEntries(error.errors.map((e) => [e.path, e.message])) : undefined;
+      return { ok: false, code: error.code, error: error.detail, ...(fieldErrors ? { fieldErrors } : {}), ...(error.extra ? { extra: error.extra } : {}) };
     }
-  };
+    console.error(error);
+    return { ok: false, code: "internal_error", error: "Something went wrong. Nothing was changed; try again." };
+  }
 }

@@ -57,17 +57,19 @@ export function authOptions(): NextAuthOptions {
             return null;
           }
           await recordSignIn(user.id);
-          return { id: user.id, name: user.name, email: user.email, role: user.role, accountId: user.accountId };
+          return { id: user.id, name: user.name, email: user.email, role: user.role, accountId: user.accountId, sessionVersion: user.sessionVersion };
         },
       }),
     ],
     callbacks: {
       jwt({ token, user }) {
         if (user) {
-          const u = user as { id: string; role?: string; accountId?: string | null };
+          const u = user as { id: string; role?: string; accountId?: string | null; sessionVersion?: number };
           token.sub = u.id;
           token.role = u.role;
           token.accountId = u.accountId ?? null;
+          // Checked against the users row on every request (lib/auth/resolve-user.ts).
+          token.sv = u.sessionVersion ?? 0;
         }
         return token;
       },

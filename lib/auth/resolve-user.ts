@@ -14,13 +14,22 @@ function readCookie(cookieHeader: string, name: string): string | undefined {
   return undefined;
 }
 
-/** The session cookie's JWT, or null when absent, expired or forged. */
+/**
+ * The session cookie's JWT, or null when absent, expired, forged, or signed in
+ * before the person's password was last reset or changed (the token's session
+ * version is older than the row's).
+ */
 export async function userFromSessionToken(token: string | undefined): Promise<SessionUser | null> {
   if (!token) return null;
   const payload = await decode({ token, secret: env().NEXTAUTH_SECRET }).catch(() => null);
   if (!payload?.sub) return null;
-  const user = await findActiveUser(payload.sub);
-  return user ? { ...user, via: "session" } : null;
+  const found = await findActiveUser(payload.sub);
+  if (!found) return null;
+  const { sessionVersion, ...user } = found;
+  // Sessions from before versions existed carry none: they count as version 0.
+  const tokenVersion = typeof payload.sv === "number" ? payload.sv : 0;
+  if (tokenVersion !== sessionVersion) return null;
+  return { ...user, via: "session" };
 }
 
 export function sessionTokenFromCookieHeader(cookieHeader: string | null): string | undefined {

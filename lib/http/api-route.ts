@@ -46,31 +46,54 @@ export function apiRoute<
       const user = await userFromRequest(request);
       if (!user) throw unauthenticated();
       if (!options.roles.includes(user.role)) throw forbidden();
+      const input = await parseRouteInput(options, request, context);
+      const result = await handler({ user, ...input, request });
+      return result instanceof Response ? result : Response.json(result);
+    } catch (error) {
+      return errorResponse(error);
+    }
+  };
+}
 
-      const rawParams = (await context?.params) ?? {};
-      const params = (options.params ?? empty).safeParse(rawParams);
-      // A malformed id names nothing that exists.
-      if (!params.success) throw notFound();
+/** Params (a malformed id is a 404), query (400) and JSON body (400/413/415), each through its zod schema. */
+async function parseRouteInput<P extends z.ZodType, Q extends z.ZodType, B extends z.ZodType>(
+  options: Omit<RouteOptions<P, Q, B>, "roles">,
+  request: Request,
+  context?: RouteContext,
+): Promise<{ params: z.output<P>; query: z.output<Q>; body: z.output<B> }> {
+  const rawParams = (await context?.params) ?? {};
+  const params = (options.params ?? empty).safeParse(rawParams);
+  // A malformed id names nothing that exists.
+  if (!params.success) throw notFound();
 
-      const url = new URL(request.url);
-      const query = (options.query ?? empty).safeParse(Object.fromEntries(url.searchParams));
-      if (!query.success) throw invalidInput(fieldProblems(query.error), "Some query parameters are not valid.");
+  const url = new URL(request.url);
+  const query = (options.query ?? empty).safeParse(Object.fromEntries(url.searchParams));
+  if (!query.success) throw invalidInput(fieldProblems(query.error), "Some query parameters are not valid.");
 
-      let body: unknown = {};
-      if (options.body) {
-        const raw = await readJsonBody(request, options.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES);
-        const parsed = options.body.safeParse(raw);
-        if (!parsed.success) throw invalidInput(fieldProblems(parsed.error));
-        body = parsed.data;
-      }
+  let body: unknown = {};
+  if (options.body) {
+    const raw = await readJsonBody(request, options.maxBodyBytes ?? DEFAULT_MAX_BODY_BYTES);
+    const parsed = options.body.safeParse(raw);
+    if (!parsed.success) throw invalidInput(fieldProblems(parsed.error));
+    body = parsed.data;
+  }
+  return { params: params.data as z.output<P>, query: query.data as z.output<Q>, body: body as z.output<B> };
+}
 
-      const result = await handler({
-        user,
-        params: params.data as z.output<P>,
-        query: query.data as z.output<Q>,
-        body: body as z.output<B>,
-        request,
-      });
+/**
+ * The entry for the few routes that answer people who are not signed in (the
+ * first-run set-up, accepting an invitation, a password reset): the same input
+ * checks and problem documents as apiRoute, no session. The token or the empty
+ * database is what authorises them, and the handler checks it in its transaction.
+ */
+export function publicRoute<P extends z.ZodType = typeof empty, B extends z.ZodType = typeof empty>(
+  options: { params?: P; body?: B; maxBodyBytes?: number },
+  handler: (input: { params: z.output<P>; body: z.output<B>; request: Request }) => Promise<Response | object>,
+) {
+  return async (request: Request, context?: RouteContext): Promise<Response> => {
+    try {
+      const { params, body } = await parseRouteInput(options, request, context);
+      const result = await handler({ params, body, request });
       return result instanceof Response ? result : Response.json(result);
     } catch (error) {
       return errorResponse(error);

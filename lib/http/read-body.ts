@@ -47,3 +47,14 @@ async function readLimited(request: Request, maxBytes: number): Promise<string> 
   if (!bytes) throw tooLarge(maxBytes);
   return new TextDecoder().decode(bytes);
 }
+
+/** A text body of one of the given media types (a CSV file), size-checked while it streams. */
+export async function readTextBody(request: Request, types: readonly string[], maxBytes: number): Promise<string> {
+  const type = (request.headers.get("content-type") ?? "").split(";")[0]!.trim().toLowerCase();
+  if (!types.includes(type)) {
+    throw new HttpError(415, "unsupported_media_type", "Unsupported media type", `Send the body as ${types.join(" or ")}.`);
+  }
+  const declared = Number(request.headers.get("content-length") ?? "0");
+  if (declared > maxBytes) throw tooLarge(maxBytes);
+  return readLimited(request, maxBytes);
+}

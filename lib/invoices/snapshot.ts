@@ -24,4 +24,12 @@ export interface UnitSnapshot {
   serialNumber: string | null;
   workOrderNumber: number;
   workOrderTitle: string;
+  /** The visit's three Cs as they stood when the invoice was issued (older invoices have none). */
+  concerns?: ThreeCs[];
+}
+
+export interface ThreeCs {
+  complaint: string;
+  cause: string;
+  correction: string;
 }

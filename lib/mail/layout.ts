@@ -31,7 +31,7 @@ export function renderMail(content: MailContent): RenderedMail {
     ...(facts.length ? [""] : []),
     `${content.action.label}: ${content.action.url}`,
     "",
-    content.footer ?? "Sent by Cotter for Quarry Road Truck & Equipment.",
+    content.footer ?? "Sent by Cotter.",
   ].join("\n");
 
   const html = `<!doctype html><html><body style="margin:0;background:#f6f1e7;font-family:Verdana,Arial,sans-serif;color:#2a2a28">
@@ -47,7 +47,7 @@ ${
     : ""
 }
 <p style="margin:20px 0"><a href="${escape(content.action.url)}" style="background:#b4501e;color:#ffffff;padding:12px 18px;border-radius:8px;text-decoration:none;font-weight:bold;display:inline-block">${escape(content.action.label)}</a></p>
-<p style="font-size:12px;color:#6e685e">${escape(content.footer ?? "Sent by Cotter for Quarry Road Truck & Equipment.")}<br>If the button does not work, open ${escape(content.action.url)}</p>
+<p style="font-size:12px;color:#6e685e">${escape(content.footer ?? "Sent by Cotter.")}<br>If the button does not work, open ${escape(content.action.url)}</p>
 </div></body></html>`;
 
   return { subject: content.subject, text, html, link: content.action.url };

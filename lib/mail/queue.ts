@@ -11,6 +11,8 @@ export interface MailMessage {
   template: string;
   mail: RenderedMail;
   attachments?: MailAttachmentRef[];
+  /** The link carries a single-use token (invitation, password reset): never shown, body dropped once sent. */
+  secret?: boolean;
 }
 
 /**
@@ -22,6 +24,11 @@ export interface GroupedMailMessage<T> {
   to: readonly string[];
   template: string;
   group: { key: string; windowMs: number; item: T; compose: (items: T[]) => RenderedMail };
+}
+
+/** A link's last path segment (the token) replaced, so the Outgoing mail page never shows a working link. */
+export function withoutToken(link: string): string {
+  return link.replace(/\/[^/]+$/, "/…");
 }
 
 function recipients(to: readonly string[]): string[] {
@@ -38,8 +45,10 @@ export async function queueMail<T>(tx: Tx, message: MailMessage | GroupedMailMes
   const at = now.toISOString();
   for (const to of recipients(message.to)) {
     if ("mail" in message) {
-      const { subject, text, html, link } = message.mail;
-      await tx.insert(mailOutbox).values({ to, subject, text, html, link, template: message.template, attachments: message.attachments ?? [], sendAfter: at, createdAt: at });
+      const { subject, text, html } = message.mail;
+      const secret = message.secret ?? false;
+      const link = secret ? withoutToken(message.mail.link) : message.mail.link;
+      await tx.insert(mailOutbox).values({ to, subject, text, html, link, secret, template: message.template, attachments: message.attachments ?? [], sendAfter: at, createdAt: at });
       continue;
     }
     const { key, windowMs, item, compose } = message.group;

@@ -51,7 +51,11 @@ async function claimDue(now: Date): Promise<MailOutboxRow[]> {
 async function sendOne(row: MailOutboxRow, now: Date): Promise<"sent" | "retry" | "failed"> {
   try {
     await transport().sendMail({ from: env().MAIL_FROM, to: row.to, subject: row.subject, text: row.text, html: row.html, attachments: await attachmentsOf(row.attachments) });
-    await writeTx((tx) => tx.update(mailOutbox).set({ status: "sent", sentAt: new Date().toISOString(), attempts: row.attempts + 1, lastError: null, claimedAt: null }).where(eq(mailOutbox.id, row.id)));
+    // A message with a single-use link keeps no copy of it once it has gone.
+    const body = row.secret ? { text: "", html: "" } : {};
+    await writeTx((tx) =>
+      tx.update(mailOutbox).set({ status: "sent", sentAt: new Date().toISOString(), attempts: row.attempts + 1, lastError: null, claimedAt: null, ...body }).where(eq(mailOutbox.id, row.id)),
+    );
     return "sent";
   } catch (error) {
     const attempts = row.attempts + 1;

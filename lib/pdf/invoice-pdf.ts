@@ -114,6 +114,28 @@ export function renderInvoicePdf(inv: InvoiceDocument, timeZone: string): Promis
   }
   y = Math.max(leftBottom, doc.y) + 16;
 
+  // The three Cs of the visit: complaint, cause, correction.
+  const threeCs = unit?.concerns ?? [];
+  if (threeCs.length) {
+    doc.font("Helvetica-Bold").fontSize(9).fillColor(FAINT).text("WORK PERFORMED", LEFT, y);
+    y = doc.y + 4;
+    threeCs.forEach((c, i) => {
+      const rows: [string, string][] = [[`Complaint ${i + 1}`, c.complaint], ["Cause", c.cause || "—"], ["Correction", c.correction || "—"]];
+      for (const [label, text] of rows) {
+        const height = doc.font("Helvetica").fontSize(9).heightOfString(text, { width: RIGHT - LEFT - 80 });
+        if (y + height > BOTTOM) {
+          doc.addPage();
+          y = 50;
+        }
+        doc.font("Helvetica").fontSize(9).fillColor(FAINT).text(label, LEFT, y, { width: 78 });
+        doc.font(label.startsWith("Complaint") ? "Helvetica-Bold" : "Helvetica").fillColor(INK).text(text, LEFT + 80, y, { width: RIGHT - LEFT - 80 });
+        y += height + 3;
+      }
+      y += 4;
+    });
+    y += 8;
+  }
+
   // Lines.
   const header = (top: number) => {
     doc.font("Helvetica-Bold").fontSize(8).fillColor(FAINT);

@@ -5,7 +5,7 @@
 import { spawnSync } from "node:child_process";
 import path from "node:path";
 
-const benches = ["estimate-bench.ts", "decision-bench.ts"];
+const benches = ["estimate-bench.ts", "decision-bench.ts", "unit-search-bench.ts"];
 let failed = false;
 for (const file of benches) {
   const result = spawnSync(process.execPath, ["--import", "tsx", path.join(import.meta.dirname, file)], { stdio: "inherit" });

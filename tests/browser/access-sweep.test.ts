@@ -17,7 +17,23 @@ const FIRST = "Brennan Township Highway Department";
 const SECOND = "Kettle Ridge Stone Co.";
 
 // Open to anyone by design; they are still swept, and must not leak or fail.
-const PUBLIC = new Set(["/sign-in", "/", "/api/v1/health", "/api/auth/[...nextauth]", "/api/uploadthing", "/api/webhooks/stripe"]);
+const PUBLIC = new Set([
+  "/sign-in",
+  "/",
+  "/api/v1/health",
+  "/api/auth/[...nextauth]",
+  "/api/uploadthing",
+  "/api/webhooks/stripe",
+  // First run (gone once anyone exists) and the pages and routes an e-mailed single-use link opens.
+  "/setup",
+  "/api/v1/setup",
+  "/forgot-password",
+  "/api/v1/password-resets",
+  "/api/v1/password-resets/complete",
+  "/invitation/[token]",
+  "/reset-password/[token]",
+  "/api/v1/invitations/accept",
+]);
 
 // Query strings a GET needs before it looks anything up; without one the answer is 400, which proves nothing about scope.
 const QUERY: Record<string, string> = {

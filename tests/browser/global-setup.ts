@@ -1,4 +1,4 @@
-import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { spawnSync } from "node:child_process";
 import { existsSync, mkdirSync, rmSync } from "node:fs";
 import path from "node:path";
 import type { TestProject } from "vitest/node";
@@ -8,10 +8,7 @@ import { startFakeSmtp } from "@/mocks/smtp/server";
 import { startFakeStripe } from "@/mocks/stripe/server";
 import { startFakeUploadThing } from "@/mocks/uploadthing/server";
 import { freePort } from "@/tests/support/ports";
-
-const root = path.join(import.meta.dirname, "..", "..");
-// A separate build directory per checkout or worktree lets test runs sit side by side.
-const distDir = process.env.COTTER_TEST_DIST_DIR ?? ".next-test";
+import { distDir, root, startAppServer } from "./app-server";
 
 declare module "vitest" {
   export interface ProvidedContext {
@@ -25,21 +22,6 @@ declare module "vitest" {
     /** The test build's directory, for tests that start a server of their own. */
     distDir: string;
   }
-}
-
-async function waitForHealth(url: string, server: ChildProcess, timeoutMs = 60_000): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    if (server.exitCode !== null) throw new Error(`app server exited with ${server.exitCode}`);
-    try {
-      const res = await fetch(`${url}/api/v1/health`);
-      if (res.ok) return;
-    } catch {
-      // not up yet
-    }
-    await new Promise((r) => setTimeout(r, 300));
-  }
-  throw new Error(`app server did not answer at ${url} within ${timeoutMs} ms`);
 }
 
 /**
@@ -74,13 +56,9 @@ export default async function setup(project: TestProject) {
   const authSecret = "browser-tests-secret-browser-tests-secret";
   // Retries come quickly here, in the same rising shape as the service's.
   const payments = await startFakeStripe({ port: 0, webhookUrl: `${baseUrl}/api/webhooks/stripe`, webhookSecret, retryDelaysMs: [500, 2_000, 5_000] });
-  const server = spawn(path.join(root, "node_modules", ".bin", "next"), ["start", "-p", String(port), "-H", "127.0.0.1"], {
-    cwd: root,
-    env: {
-      ...env,
-      NODE_ENV: "production",
+  const server = await startAppServer(
+    {
       DATABASE_URL: dbUrl,
-      NEXTAUTH_URL: baseUrl,
       NEXTAUTH_SECRET: authSecret,
       SMTP_URL: `smtp://127.0.0.1:${smtp.smtpPort}`,
       STRIPE_SECRET_KEY: "",
@@ -92,9 +70,8 @@ export default async function setup(project: TestProject) {
       // No UPLOADTHING_TOKEN: the app points the SDK at the fake on this port (lib/uploads/config.ts).
       FAKE_UPLOADTHING_PORT: new URL(uploads.url).port,
     },
-    stdio: ["ignore", "inherit", "inherit"],
-  });
-  await waitForHealth(baseUrl, server);
+    port,
+  );
 
   project.provide("baseUrl", baseUrl);
   project.provide("mailUrl", `http://127.0.0.1:${smtp.httpPort}`);
@@ -104,7 +81,7 @@ export default async function setup(project: TestProject) {
   project.provide("distDir", distDir);
 
   return async () => {
-    server.kill("SIGTERM");
+    server.stop();
     await Promise.all([smtp.close(), uploads.close(), payments.close()]);
   };
 }

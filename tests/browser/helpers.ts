@@ -30,8 +30,8 @@ export async function launch(): Promise<Browser> {
   });
 }
 
-export async function newContext(browser: Browser, viewport = PHONE): Promise<BrowserContext> {
-  return browser.newContext({ viewport, baseURL: baseUrl(), isMobile: viewport === PHONE, hasTouch: viewport === PHONE });
+export async function newContext(browser: Browser, viewport = PHONE, base = baseUrl()): Promise<BrowserContext> {
+  return browser.newContext({ viewport, baseURL: base, isMobile: viewport === PHONE, hasTouch: viewport === PHONE });
 }
 
 /** Signs in through the real sign-in page, as a person would. */

@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
-import { updateAccountSettings } from "@/db/queries/accounts";
+import { updateAccount } from "@/db/queries/account-writes";
 import { decide } from "@/db/queries/decisions";
 import { addLine, bringBackDeferred, editLine } from "@/db/queries/estimate-lines";
 import { sendEstimate, startUnderStanding } from "@/db/queries/estimate-send";
@@ -102,10 +102,12 @@ describe("account settings", () => {
   it("records every change in the audit log with before and after", async () => {
     const owner = await sessionUser("owner@quarry-road.example");
     const [account] = await getDb().select().from(accounts).where(eq(accounts.name, "Kettle Ridge Stone Co."));
-    const result = await updateAccountSettings(owner, {
-      accountId: account!.id, standingAuthorisation: 75_000, repairBudget: 12_000_000, fiscalYearStartMonth: 1,
-      overrunPercent: 10_000, overrunCap: 1_000, overrunFloor: 1_000, taxExempt: false, taxExemptCertificate: "", taxRate: 6_250,
-      poRequired: true, paymentTermsDays: 30, shopSuppliesExempt: false,
+    const result = await updateAccount(owner, account!.id, {
+      fields: {
+        standingAuthorisationCents: 75_000, repairBudgetCents: 12_000_000, fiscalYearStartMonth: 1,
+        overrunPercentMilli: 10_000, overrunCapCents: 1_000, overrunFloorCents: 1_000, taxExempt: false, taxExemptCertificate: null, taxRateMilliPct: 6_250,
+        poRequired: true, paymentTermsDays: 30, shopSuppliesExempt: false,
+      },
     });
     expect(result.changed).toBe(4);
     const [entry] = await getDb().select().from(auditLog).where(eq(auditLog.entityId, account!.id));

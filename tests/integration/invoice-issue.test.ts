@@ -6,7 +6,7 @@ import { GET as listInvoices } from "@/app/api/v1/invoices/route";
 import { getDb, writeTx } from "@/db/client";
 import { issueInvoice, markLinesDone, setWorkOrderPoNumber } from "@/db/queries/invoice-issue";
 import { voidInvoice } from "@/db/queries/payments";
-import { accounts, counters, estimateLines, invoices, workOrders } from "@/db/schema";
+import { accounts, concerns, counters, estimateLines, invoices, workOrders } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { HttpError } from "@/lib/http/problem";
 import { queueInvoiceIssued } from "@/lib/mail/invoice-notices";
@@ -103,6 +103,9 @@ describe("a taxable account (Kettle Ridge, 6.25 %)", () => {
     // Parts 82.50 + 19.99 = 102.49; supplies 8 % × 213.75 = 17.10; tax 6.25 % × 102.49 = 6.405625 → 6.41;
     // cores 20.00; total 213.75 + 102.49 + 17.10 + 6.41 + 20.00 = 359.75
     expect(inv).toMatchObject({ laborCents: 21_375, partsCents: 10_249, shopSuppliesCents: 1_710, taxableCents: 10_249, taxCents: 641, coreCents: 2_000, totalCents: 35_975, taxExemptCertificate: null, taxRateMilliPct: 6_250 });
+    // The visit's complaint, cause and correction travel on the invoice as they stood at issue.
+    const [first] = await getDb().select().from(concerns).where(eq(concerns.workOrderId, wo.id)).orderBy(concerns.position);
+    expect(inv!.unitSnapshot?.concerns?.[0]).toEqual({ complaint: first!.complaint, cause: first!.cause, correction: first!.correction });
   });
 });
 

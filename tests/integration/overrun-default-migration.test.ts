@@ -43,7 +43,9 @@ describe("overrun allowance default (migration)", () => {
 
       await migrate(db, { migrationsFolder: committed });
 
-      expect((await client.execute("SELECT * FROM accounts WHERE id = 'old'")).rows[0]).toEqual(before);
+      // Every column the account had keeps its value (later migrations may add columns of their own).
+      const after = (await client.execute("SELECT * FROM accounts WHERE id = 'old'")).rows[0]!;
+      expect(Object.fromEntries(Object.keys(before!).map((k) => [k, after[k]]))).toEqual({ ...before });
       expect((await client.execute("SELECT count(*) AS n FROM account_contacts WHERE account_id = 'old'")).rows[0]).toMatchObject({ n: 1 });
       expect((await client.execute("SELECT account_id FROM users WHERE id = 'u1'")).rows[0]).toMatchObject({ account_id: "old" });
       expect((await client.execute("PRAGMA foreign_key_check")).rows).toHaveLength(0);

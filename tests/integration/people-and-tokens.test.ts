@@ -2,7 +2,8 @@ import { eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { GET as me } from "@/app/api/v1/me/route";
 import { createToken, listMyTokens, revokeToken } from "@/db/queries/api-tokens";
-import { addPerson, setPersonActive } from "@/db/queries/people";
+import { acceptInvitation, createInvitation } from "@/db/queries/invitations";
+import { setPersonActive } from "@/db/queries/people";
 import { getDb } from "@/db/client";
 import { apiTokens, accounts } from "@/db/schema";
 import { authOptions } from "@/lib/auth/options";
@@ -15,14 +16,13 @@ const authorize = (email: string, password: string) =>
   );
 
 describe("people and personal API tokens", () => {
-  it("the owner adds a fleet approver who can then sign in; a second person with the same e-mail is refused", async () => {
+  it("an approver the owner invited sets their own password and can then sign in; the same e-mail cannot be invited twice", async () => {
     const owner = await sessionUser("owner@quarry-road.example");
     const [kettle] = await getDb().select().from(accounts).where(eq(accounts.name, "Kettle Ridge Stone Co."));
-    await addPerson(owner, { name: "Dee Marsh", email: "dee@kettle-ridge.example", role: "approver", accountId: kettle!.id, signingLimit: 150_000, password: "a-long-first-password" });
+    const { token } = await createInvitation(owner, { name: "Dee Marsh", email: "dee@kettle-ridge.example", role: "approver", accountId: kettle!.id, signingLimitCents: 150_000 });
+    await acceptInvitation(token, "a-long-first-password");
     await expect(authorize("dee@kettle-ridge.example", "a-long-first-password")).resolves.toMatchObject({ role: "approver", accountId: kettle!.id });
-    await expect(
-      addPerson(owner, { name: "Again", email: "dee@kettle-ridge.example", role: "viewer", accountId: kettle!.id, signingLimit: 0, password: "another-password" }),
-    ).rejects.toMatchObject({ status: 400 });
+    await expect(createInvitation(owner, { name: "Again", email: "dee@kettle-ridge.example", role: "viewer", accountId: kettle!.id })).rejects.toMatchObject({ status: 400 });
   });
 
   it("turning sign-in off ends the person's session and tokens at their next request", async () => {

@@ -1,25 +1,14 @@
 import { desc, eq } from "drizzle-orm";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { GET as visit } from "@/app/api/v1/units/[id]/visit/route";
 import { POST as move } from "@/app/api/v1/work-orders/[id]/status/route";
 import { GET as listOrders } from "@/app/api/v1/work-orders/route";
 import { getDb } from "@/db/client";
 import { auditLog, statusEvents, workOrders } from "@/db/schema";
-import { resetEnvCache } from "@/lib/env";
-import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { call } from "./helpers/app";
+import { catchMail } from "./helpers/mail";
 
-let smtp: FakeSmtp;
-beforeAll(async () => {
-  smtp = await startFakeSmtp({ smtpPort: 0, httpPort: 0 });
-  process.env.SMTP_URL = `smtp://127.0.0.1:${smtp.smtpPort}`;
-  resetEnvCache();
-});
-afterAll(async () => {
-  delete process.env.SMTP_URL;
-  resetEnvCache();
-  await smtp?.close();
-});
+const mail = catchMail();
 
 async function workOrder(number: number) {
   const [row] = await getDb().select().from(workOrders).where(eq(workOrders.number, number)).limit(1);
@@ -92,19 +81,19 @@ describe("POST /api/v1/work-orders/:id/status", () => {
   });
 
   it("Ready for pickup e-mails the account's approvers and viewers, linking to the fleet unit page", async () => {
-    smtp.clear();
+    mail.smtp().clear();
     const wo = await workOrder(1042);
     const res = await post(wo.id, "writer@quarry-road.example", { status: "ready", note: "Keys at the front counter." });
     expect(res.status).toBe(200);
     const expected = ["supervisor@brennan-twp.example", "trustee@brennan-twp.example", "foreman@brennan-twp.example"];
-    const mails = await Promise.all(expected.map((to) => smtp.waitFor((m) => m.to.includes(to) && m.subject.includes("T-14"))));
+    const mails = await Promise.all(expected.map((to) => mail.smtp().waitFor((m) => m.to.includes(to) && m.subject.includes("T-14"))));
     for (const mail of mails) {
       expect(mail.subject).toBe("T-14 is ready for pickup (W-1042)");
       expect(mail.text).toContain(`http://localhost:3000/fleet/units/${wo.unitId}`);
       expect(mail.text).toContain("Keys at the front counter.");
     }
     // The clerk pays invoices; pickup is not theirs.
-    expect(smtp.messages.some((m) => m.to.includes("clerk@brennan-twp.example"))).toBe(false);
+    expect(mail.smtp().messages.some((m) => m.to.includes("clerk@brennan-twp.example"))).toBe(false);
   });
 
   it("releasing sets releasedAt and closes the visit: it cannot be moved again (409)", async () => {

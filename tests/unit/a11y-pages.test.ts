@@ -1,6 +1,6 @@
 // Every page under app/ has an entry in the accessibility sweep's list (tests/browser/a11y/pages.ts),
 // so a page added later is swept as soon as it exists; and every entry names a real page.
-import { readdirSync } from "node:fs";
+import { readFileSync, readdirSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { PAGES } from "../browser/a11y/pages";
@@ -37,8 +37,17 @@ describe("the accessibility sweep's page list", () => {
   it("names only pages that exist, and gives every [param] a query for a real id", () => {
     for (const p of PAGES) {
       expect(routes, p.route).toContain(p.route);
-      for (const param of p.route.match(/\[([^\]]+)\]/g) ?? []) expect(p.ids?.[param.slice(1, -1)], `${p.route} ${param}`).toBeTruthy();
       expect(p.viewports.length).toBeGreaterThan(0);
+      if (p.sweptIn) continue;
+      for (const param of p.route.match(/\[([^\]]+)\]/g) ?? []) expect(p.ids?.[param.slice(1, -1)], `${p.route} ${param}`).toBeTruthy();
+    }
+  });
+
+  it("a page swept elsewhere names a browser test that runs the axe check", () => {
+    for (const p of PAGES.filter((e) => e.sweptIn)) {
+      const source = readFileSync(path.join(import.meta.dirname, "..", "browser", p.sweptIn!), "utf8");
+      const checks = source.split("\n").filter((line) => line.includes("expectNoSeriousViolations(") && line.includes(`"${p.route}"`));
+      expect(checks.length, `${p.sweptIn} must call expectNoSeriousViolations(page, "${p.route}")`).toBeGreaterThan(0);
     }
   });
 });

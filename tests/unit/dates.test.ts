@@ -1,5 +1,5 @@
 import { describe, expect, it, vi } from "vitest";
-import { addDays, daysBetween, startOfDayIso } from "@/lib/dates";
+import { addDays, daysBetween, localDateTimeIso, startOfDayIso, toLocalDateTimeInput } from "@/lib/dates";
 
 // Offsets from the IANA time zone database via Intl (ECMA-402): US Central is
 // UTC−6 in winter and UTC−5 in summer; daylight saving began 2026-03-08.
@@ -50,5 +50,19 @@ describe("the shop's time zone (APP_TIME_ZONE)", () => {
       vi.unstubAllEnvs();
       vi.resetModules();
     }
+  });
+});
+
+describe("localDateTimeIso / toLocalDateTimeInput: a promised-by time typed in the shop's zone", () => {
+  it("reads a wall-clock time in the zone, across a daylight-saving change (common practice: US zones move in March and November)", () => {
+    // 16:30 in Chicago in January is UTC−6.
+    expect(localDateTimeIso("2026-01-15T16:30", "America/Chicago")).toBe("2026-01-15T22:30:00.000Z");
+    // In July it is UTC−5.
+    expect(localDateTimeIso("2026-07-15T16:30", "America/Chicago")).toBe("2026-07-15T21:30:00.000Z");
+    expect(toLocalDateTimeInput("2026-07-15T21:30:00.000Z", "America/Chicago")).toBe("2026-07-15T16:30");
+  });
+  it("refuses what is not a time", () => {
+    expect(localDateTimeIso("2026-02-30T10:00", "America/Chicago")).toBeNull();
+    expect(localDateTimeIso("tomorrow", "America/Chicago")).toBeNull();
   });
 });

@@ -1,8 +1,10 @@
 import { describe, expect, it } from "vitest";
 import { appRoutes, fillPattern, pageSource, paramKeys } from "@/tests/support/app-tree";
 
-// Pages anyone may open: signing in, and the root that sends people to their home page.
-const PUBLIC_PAGES = new Set(["/sign-in", "/"]);
+// Pages anyone may open: signing in (and asking for a reset link), the root that sends people to
+// their home page, the one-time set-up (404 once anyone exists), and the pages an e-mailed
+// single-use link opens (the token is the credential; a bad one is refused on the page).
+const PUBLIC_PAGES = new Set(["/sign-in", "/", "/forgot-password", "/setup", "/invitation/[token]", "/reset-password/[token]"]);
 
 /** The first thing the page awaits. */
 function firstAwait(source: string): string | undefined {

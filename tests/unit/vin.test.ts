@@ -3,6 +3,7 @@ import fc from "fast-check";
 import {
   NO_VIN_MESSAGE,
   VIN_ALPHABET,
+  vinLiveCheck,
   normalizeVin,
   validateVin,
   vinCharValue,
@@ -208,5 +209,26 @@ describe("withCheckDigit — properties over generated VINs (49 CFR 565.15(c) ar
       }),
       { numRuns: 500 },
     );
+  });
+});
+
+describe("vinLiveCheck: what the form says while a VIN is typed (49 CFR 565.15(c))", () => {
+  it("says nothing against a VIN not yet finished, and counts", () => {
+    expect(vinLiveCheck("").state).toBe("empty");
+    expect(vinLiveCheck("1G4AH59")).toEqual({ state: "typing", message: "7 of 17 characters." });
+  });
+  it("refuses I, O and Q the moment they are typed", () => {
+    const r = vinLiveCheck("1G4AO");
+    expect(r.state).toBe("error");
+    expect(r.message).toContain("found O at position 5");
+  });
+  it("at 17 characters gives the check-digit verdict on the worked examples of reference-values.md", () => {
+    // The regulation's Table VI sample: sum 411, check digit 4.
+    expect(vinLiveCheck("1G4AH59H45G118341")).toMatchObject({ state: "ok", message: "Check digit 4 matches (49 CFR 565.15(c))." });
+    // Textbook example: sum 351, remainder 10, written X.
+    expect(vinLiveCheck("1M8GDM9AXKP042788").state).toBe("ok");
+    // A wrong position 9 names the digit it should carry.
+    expect(vinLiveCheck("1M8GDM9A3KP042788")).toMatchObject({ state: "error", expected: "X" });
+    expect(vinLiveCheck("1G4AH59H95G118341")).toMatchObject({ state: "error", expected: "4" });
   });
 });

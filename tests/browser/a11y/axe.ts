@@ -1,6 +1,7 @@
 import path from "node:path";
 import axe from "axe-core";
 import type { Page } from "playwright-core";
+import { expect } from "vitest";
 import { openDatabase } from "@/db/client";
 
 /** WCAG 2.2 A and AA, as axe-core tags them. */
@@ -30,6 +31,12 @@ export async function seriousViolations(page: Page): Promise<Violation[]> {
     }));
   }, TAGS);
   return results.filter((v) => v.impact === "serious" || v.impact === "critical");
+}
+
+/** The sweep's check on a page as it stands: no serious or critical violation (`route` names it in the message). */
+export async function expectNoSeriousViolations(page: Page, route: string): Promise<void> {
+  const found = await seriousViolations(page);
+  expect(found, `${route}: ${JSON.stringify(found, null, 2)}`).toEqual([]);
 }
 
 /** The browser tests' demo database (tests/browser/global-setup.ts), for looking up real ids. */

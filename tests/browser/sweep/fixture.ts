@@ -1,7 +1,7 @@
 import { and, eq, inArray, isNotNull, like } from "drizzle-orm";
 import { encode } from "next-auth/jwt";
 import { openDatabase } from "@/db/client";
-import { accounts, concerns, estimateLines, findings, invoices, occurrences, photos, units, users, workOrders } from "@/db/schema";
+import { accounts, concerns, estimateLines, findings, invitations, invoices, occurrences, photos, units, users, workOrders } from "@/db/schema";
 import { invoiceLabel, workOrderLabel, type Role } from "@/lib/domain";
 
 export const PARAM_MAP_FILE = "tests/browser/sweep/fixture.ts (paramValues)";
@@ -19,6 +19,7 @@ export interface AccountIds {
   invoiceId: string;
   concernId: string;
   occurrenceId: string;
+  invitationId: string;
 }
 
 function must<T>(value: T | undefined, what: string): T {
@@ -49,8 +50,14 @@ export async function idsOf(db: Db, accountName: string): Promise<AccountIds> {
   const [concern] = occ.concernId
     ? [{ id: occ.concernId }]
     : await db.select({ id: concerns.id }).from(concerns).innerJoin(units, eq(units.id, concerns.unitId)).where(eq(units.accountId, accountId)).limit(1);
+  // The demo has no invitation waiting; the sweep makes one of the first account's (removed afterwards).
+  const [invitation] = await db
+    .insert(invitations)
+    .values({ email: SWEEP_EMAIL.replace("%", "invitee"), name: "Sweep Invitee", role: "viewer", accountId, tokenHash: `sweep-${accountId}`, expiresAt: new Date(Date.now() + 86_400_000).toISOString(), sentAt: new Date().toISOString() })
+    .returning({ id: invitations.id });
   return {
     accountId,
+    invitationId: invitation!.id,
     unitId: occ.unitId,
     workOrderId: l.workOrderId,
     lineId: l.id,
@@ -79,6 +86,10 @@ export function paramValues(ids: AccountIds): Record<string, string> {
     "accounts/[id]": ids.accountId,
     "receivables/[accountId]": ids.accountId,
     "concerns/[id]": ids.concernId,
+    "invitations/[id]": ids.invitationId,
+    // Pages an e-mailed link opens: the token is the credential, so any value is a refused link.
+    "invitation/[token]": "not-a-link-anyone-was-sent-0000000000000000",
+    "reset-password/[token]": "not-a-link-anyone-was-sent-0000000000000000",
     // next-auth's own endpoints: /api/auth/session and friends.
     "auth/[...nextauth]": "session",
   };
@@ -155,4 +166,5 @@ export async function personasOf(db: Db, accountId: string, secret: string): Pro
 
 export async function removeSweepPeople(db: Db): Promise<void> {
   await db.delete(users).where(and(like(users.email, SWEEP_EMAIL), isNotNull(users.accountId)));
+  await db.delete(invitations).where(like(invitations.email, SWEEP_EMAIL));
 }

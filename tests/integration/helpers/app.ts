@@ -15,7 +15,7 @@ export async function userByEmail(email: string) {
 export async function sessionCookie(email: string): Promise<string> {
   const user = await userByEmail(email);
   const token = await encode({
-    token: { sub: user.id, name: user.name, email: user.email, role: user.role, accountId: user.accountId },
+    token: { sub: user.id, name: user.name, email: user.email, role: user.role, accountId: user.accountId, sv: user.sessionVersion },
     secret: process.env.NEXTAUTH_SECRET!,
   });
   return `next-auth.session-token=${token}`;

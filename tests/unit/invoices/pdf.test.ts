@@ -89,6 +89,19 @@ describe("the invoice PDF (issue: shop and account details, PO, lines, totals, t
     }
   });
 
+  it("prints the visit's complaint, cause and correction (the trade's three Cs, common practice on a repair order)", async () => {
+    const concerns = [
+      { complaint: "Plow drifts down overnight with the valve in hold.", cause: "Lift cylinder piston seals bypassing.", correction: "Resealed the lift cylinder; held 12 h." },
+      { complaint: "Annual inspection due next month.", cause: "", correction: "" },
+    ];
+    const text = pdfText(await renderInvoicePdf({ ...invoice, unit: { ...invoice.unit!, concerns } }, "America/Chicago"));
+    for (const expected of ["WORK PERFORMED", "Complaint 1", "Plow drifts down overnight with the valve in hold.", "Lift cylinder piston seals bypassing.", "Resealed the lift cylinder; held 12 h.", "Complaint 2"]) {
+      expect(text, expected).toContain(expected);
+    }
+    // An invoice issued before the three Cs were kept prints none.
+    expect(pdfText(await renderInvoicePdf(invoice, "America/Chicago"))).not.toContain("WORK PERFORMED");
+  });
+
   it("says void and that nothing is owed on a void invoice", async () => {
     const pdf = await renderInvoicePdf({ ...invoice, paymentState: "void", voidReason: "Wrong PO.", payments: [] }, "America/Chicago");
     expect(pdfText(pdf)).toContain("VOID: Wrong PO. Nothing is owed on this invoice.");

@@ -10,9 +10,12 @@ import { MeterList } from "@/components/units/meter-list";
 import { MeterReadingForm } from "@/components/units/meter-reading-form";
 import { UnitFacts } from "@/components/units/unit-facts";
 import { WorkOrderHistory } from "@/components/units/work-order-history";
+import { ChangeLog } from "@/components/accounts/change-log";
+import { ButtonLink } from "@/components/ui/button";
+import { auditTrail } from "@/db/queries/audit";
 import { getUnitDetail } from "@/db/queries/units";
 import { requirePageRole } from "@/lib/auth/page-access";
-import { CAN } from "@/lib/auth/policy";
+import { CAN, hasRole } from "@/lib/auth/policy";
 import { workOrderLabel } from "@/lib/domain";
 import { calendarDate } from "@/lib/format";
 
@@ -24,10 +27,18 @@ export default async function ShopUnitPage({ params }: { params: Promise<{ id: s
   const detail = await getUnitDetail(user, id);
   if (!detail) notFound();
   const { unit, openWorkOrder, readings, history, deferred } = detail;
+  const canEdit = hasRole(user, CAN.manageAccounts);
+  const changes = canEdit ? await auditTrail("unit", unit.id) : [];
   return (
     <>
-      <PageHeader title={`Unit ${unit.unitNumber}`} kicker={unit.accountName}>
+      <PageHeader title={`Unit ${unit.unitNumber}`} kicker={unit.retiredAt ? `${unit.accountName} · retired` : unit.accountName}>
         {openWorkOrder ? <StatusPill status={openWorkOrder.status} /> : <StatusPill status={null} />}
+        {canEdit && !openWorkOrder && !unit.retiredAt ? <ButtonLink href={`/work-orders/new?unitId=${unit.id}`}>Check in</ButtonLink> : null}
+        {canEdit ? (
+          <ButtonLink href={`/units/${unit.id}/edit`} variant="secondary">
+            Edit
+          </ButtonLink>
+        ) : null}
       </PageHeader>
       <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
         <div className="flex flex-col gap-4">
@@ -56,6 +67,12 @@ export default async function ShopUnitPage({ params }: { params: Promise<{ id: s
             <CardTitle>Deferred work</CardTitle>
             <DeferredWork rows={deferred} />
           </Card>
+          {canEdit ? (
+            <Card>
+              <CardTitle>Changes</CardTitle>
+              <ChangeLog entries={changes} />
+            </Card>
+          ) : null}
           <Card>
             <CardTitle>Meter readings</CardTitle>
             <MeterReadingForm unitId={unit.id} />

@@ -12,9 +12,14 @@ import { ConcernList } from "@/components/work-order/concern-list";
 import { StatusMover } from "@/components/work-order/status-mover";
 import { Timeline } from "@/components/work-order/timeline";
 import { WorkOrderHeader } from "@/components/work-order/wo-header";
+import { ConcernEditor } from "@/components/visits/concern-editor";
+import { VisitDetailsForm } from "@/components/visits/visit-details-form";
+import { assignableStaff } from "@/db/queries/people";
 import { loadShopWorkOrderPage } from "@/db/queries/shop-work-order-page";
 import { requirePageRole } from "@/lib/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
+import { toLocalDateTimeInput } from "@/lib/dates";
+import { env } from "@/lib/env";
 
 export const metadata: Metadata = { title: "Work order" };
 
@@ -25,6 +30,8 @@ export default async function ShopWorkOrderPage({ params }: { params: Promise<{ 
   if (!page) notFound();
   const { view } = page;
   const canPrice = hasRole(user, CAN.writeEstimates);
+  const open = view.status !== "released";
+  const staff = canPrice && open ? await assignableStaff() : [];
   const describe = (lineId: string) => view.lines.find((l) => l.id === lineId)?.description ?? "Removed line";
   return (
     <>
@@ -38,11 +45,25 @@ export default async function ShopWorkOrderPage({ params }: { params: Promise<{ 
               canAdd={view.status !== "released" && hasRole(user, CAN.postFindings)}
             />
             <Card>
-              <CardTitle>Concerns</CardTitle>
-              <ConcernList concerns={view.concerns} />
+              <CardTitle>Concerns: complaint, cause, correction</CardTitle>
+              {open && hasRole(user, CAN.moveStatus) ? <ConcernEditor workOrderId={view.id} concerns={view.concerns} /> : <ConcernList concerns={view.concerns} />}
             </Card>
           </div>
           <div className="flex min-w-0 flex-col gap-4">
+            {canPrice && open ? (
+              <Card>
+                <CardTitle>Visit details</CardTitle>
+                <VisitDetailsForm
+                  workOrderId={view.id}
+                  staff={staff}
+                  initial={{
+                    assignedTechId: view.assignedTechId ?? "",
+                    promisedAt: view.promisedAt ? toLocalDateTimeInput(view.promisedAt, env().APP_TIME_ZONE) : "",
+                    poNumber: view.poNumber ?? "",
+                  }}
+                />
+              </Card>
+            ) : null}
             {hasRole(user, CAN.moveStatus) ? (
               <Card>
                 <CardTitle>Move this unit</CardTitle>

@@ -29,13 +29,18 @@ export default async function FleetUnitPage({ params }: { params: Promise<{ id: 
       <PageHeader title={`Unit ${unit.unitNumber}`} kicker={unit.description}>
         <LiveVisitStatus unitId={unit.id} initial={visit} />
       </PageHeader>
-      {openWorkOrder ? (
-        <p className="mb-4">
+      <p className="mb-4 flex flex-wrap gap-2">
+        {openWorkOrder ? (
           <ButtonLink href={`/fleet/work-orders/${openWorkOrder.id}`} data-testid="open-estimate">
             {openWorkOrder.status === "waiting_approval" ? "Review the estimate and decide" : "See this visit's estimate"}
           </ButtonLink>
-        </p>
-      ) : null}
+        ) : null}
+        {unit.retiredAt ? null : (
+          <ButtonLink href={`/fleet/reports/new?unitId=${unit.id}`} variant="secondary">
+            Report a defect
+          </ButtonLink>
+        )}
+      </p>
       <div className="grid gap-4 lg:grid-cols-[3fr_2fr]">
         <div className="flex flex-col gap-4">
           <LiveVisit unitId={unit.id} initial={visit} />

@@ -1,8 +1,10 @@
+import { updateUnit } from "@/db/queries/unit-writes";
 import { getUnitDetail } from "@/db/queries/units";
 import { CAN } from "@/lib/auth/policy";
 import { apiRoute, idParams } from "@/lib/http/api-route";
 import { notFound } from "@/lib/http/problem";
 import { lineAmountCents } from "@/lib/money";
+import { unitPatchInput } from "@/lib/validation/unit";
 
 export const dynamic = "force-dynamic";
 
@@ -29,3 +31,6 @@ export const GET = apiRoute({ roles: CAN.anyone, params: idParams }, async ({ us
     workOrders: history,
   };
 });
+
+/** Any field of POST (null clears an optional one), plus `retired: true` to take the unit off every list. */
+export const PATCH = apiRoute({ roles: CAN.manageAccounts, params: idParams, body: unitPatchInput }, async ({ user, params, body }) => updateUnit(user, params.id, body));

@@ -2,6 +2,7 @@ import { moveStatus } from "@/db/queries/status-writes";
 import { CAN } from "@/lib/auth/policy";
 import { apiRoute, idParams } from "@/lib/http/api-route";
 import { queueUnitReadyNotice } from "@/lib/mail/unit-ready-notice";
+import { defectsFixedNotice } from "@/lib/notifications/visits";
 import { statusMoveInput } from "@/lib/validation/status";
 
 export const dynamic = "force-dynamic";
@@ -10,6 +11,7 @@ export const dynamic = "force-dynamic";
 export const POST = apiRoute({ roles: CAN.moveStatus, params: idParams, body: statusMoveInput }, async ({ user, params, body }) => {
   const { workOrder } = await moveStatus(user, params.id, body, async (tx, moved) => {
     if (moved.becameReady) await queueUnitReadyNotice(tx, moved.workOrder.id, body.note);
+    await defectsFixedNotice(tx, moved.fixedRequestIds);
   });
   return workOrder;
 });
