@@ -16,7 +16,7 @@ export interface DemoWorld {
   staff: { writer: string; techs: string[] };
   rates: { shop: string; diagnosis: string };
   shop: typeof shopSettings.$inferSelect;
-  counts: { workOrders: number; open: number; townshipReleased: number; lines: number; decisions: number; invoices: number };
+  counts: { workOrders: number; open: number; townshipReleased: number; townshipOpen: number; lines: number; decisions: number; invoices: number };
   counters: { workOrder: number; invoice: number };
 }
 
@@ -108,6 +108,9 @@ export async function readDemo(db: LibSQLDatabase<typeof schema>): Promise<DemoW
       open: await one(db.select({ n: count() }).from(workOrders).where(ne(workOrders.status, "released"))),
       townshipReleased: await one(
         db.select({ n: count() }).from(workOrders).where(sql`${workOrders.accountId} = ${township.id} and ${workOrders.status} = 'released'`),
+      ),
+      townshipOpen: await one(
+        db.select({ n: count() }).from(workOrders).where(sql`${workOrders.accountId} = ${township.id} and ${workOrders.status} <> 'released'`),
       ),
       lines: await one(db.select({ n: count() }).from(estimateLines)),
       decisions: await one(db.select({ n: count() }).from(decisions)),

@@ -6,7 +6,8 @@
  * on approval, and visits full of small proposed lines for the approvals
  * benchmark. Everything invented; seeded, so every run writes the same data.
  *
- * Run: npm run bench:db -- [--out tests/.artifacts/bench/big.db]
+ * Run: npm run bench:db -- [--scale big|demo] [--out tests/.artifacts/bench/big.db]
+ * (`--scale demo`: the demo data plus only the township's 250-line visit.)
  */
 import { writeFileSync } from "node:fs";
 import path from "node:path";
@@ -18,7 +19,7 @@ import { budgetUsedCents, currentFiscalYear } from "@/db/queries/estimate-contex
 import * as schema from "@/db/schema";
 import { env } from "@/lib/env";
 import { BulkWriter } from "./bulk";
-import { readDemo, unitsInShop } from "./demo";
+import { readDemo, unitsInShop, type DemoWorld } from "./demo";
 import { InvoiceWriter } from "./invoices";
 import { writeBigVisit, writeOpenVisit, writePoolVisit, type PoolLine } from "./open-visits";
 import { planVisits } from "./plan";
@@ -27,7 +28,10 @@ import { writePastVisit, type VisitContext } from "./visit-writer";
 import { prepareDemoFile } from "./prepare";
 import { addAccounts, addUnits } from "./world";
 
-export const TARGETS = {
+export type Targets = typeof BIG;
+
+/** The big database of issue 13. */
+export const BIG = {
   accounts: 200,
   units: 5_000,
   workOrders: 50_000,
@@ -43,46 +47,70 @@ export const TARGETS = {
   poolLinesPerVisit: 61,
 };
 
+/**
+ * The demo data with nothing added but the township's 250-line visit (built
+ * from the same seed as the big database's), so the approval page can be
+ * compared across the two databases.
+ */
+export function demoWithBigVisit(demo: DemoWorld): Targets {
+  const townshipUnits = demo.units.filter((u) => u.accountId === demo.township.id);
+  return {
+    accounts: demo.accounts.length, units: demo.units.length, workOrders: demo.counts.workOrders + 1, open: demo.counts.open + 1,
+    lines: demo.counts.lines, decisions: demo.counts.decisions, invoices: demo.counts.invoices,
+    townshipUnits: townshipUnits.length, townshipPast: demo.counts.townshipReleased, townshipOpen: demo.counts.townshipOpen + 1,
+    poolVisits: 0, poolLinesPerVisit: 0,
+  };
+}
+
+export type Scale = "big" | "demo";
+
+/** Where the command line writes a database's manifest. */
+export function manifestFile(dbFile: string): string {
+  return dbFile.replace(/\.db$/, ".json");
+}
+
 /** What the benchmark needs to find in the big database. */
 export interface BigManifest {
   seconds: number;
+  seededSeconds?: number;
   townshipId: string;
   bigVisitId: string;
   pool: PoolLine[];
   counts: Record<string, number>;
 }
 
-export async function generateBigDatabase(url: string, log: (line: string) => void = () => {}): Promise<BigManifest> {
+export async function generateDatabase(url: string, scale: Scale, log: (line: string) => void = () => {}): Promise<BigManifest> {
   const started = performance.now();
   const client = createClient({ url, concurrency: 1 });
   const db = drizzle(client, { schema });
   try {
-    // A bulk load: no journal, no fsync, a big page cache, one connection holding the file.
-    for (const p of ["journal_mode = OFF", "synchronous = OFF", "cache_size = -1000000", "temp_store = MEMORY", "locking_mode = EXCLUSIVE", "foreign_keys = OFF"]) {
+    // A bulk load: no journal, no fsync, a big page cache, no foreign-key checks (rows come in any order).
+    for (const p of ["journal_mode = OFF", "synchronous = OFF", "cache_size = -1000000", "temp_store = MEMORY", "foreign_keys = OFF"]) {
       await client.execute(`PRAGMA ${p}`);
     }
     const rng = new Rng(20_261_130);
     const now = Date.now();
     const demo = await readDemo(db);
     const inShop = await unitsInShop(db);
+    const targets = scale === "big" ? BIG : demoWithBigVisit(demo);
     // Indexes are built once over the loaded rows (faster than growing them row by row), from the migrations' own SQL.
     const indexes = await client.execute("SELECT name, sql FROM sqlite_master WHERE type = 'index' AND sql IS NOT NULL");
     for (const row of indexes.rows) await client.execute(`DROP INDEX "${String(row.name)}"`);
     const w = new BulkWriter(client);
-    const accounts = await addAccounts(w, rng, demo, TARGETS.accounts, now);
-    const units = await addUnits(w, rng, demo, accounts, { totalUnits: TARGETS.units, townshipUnits: TARGETS.townshipUnits }, now);
-    const visits = planVisits(rng, { accounts, units, inShop }, TARGETS, { ...demo.counts, lastNumber: demo.counters.workOrder }, now);
+    const accounts = await addAccounts(w, rng, demo, targets.accounts, now);
+    const units = await addUnits(w, rng, demo, accounts, { totalUnits: targets.units, townshipUnits: targets.townshipUnits }, now);
+    const visits = planVisits(rng, { accounts, units, inShop }, targets, { ...demo.counts, lastNumber: demo.counters.workOrder }, now);
     const past = visits.filter((v) => v.kind === "past");
     const s = demo.shop;
     const invoicesWriter = new InvoiceWriter(
       w, rng, now,
       { ...s, name: s.shopName, addressLines: [s.addressLine1, s.addressLine2].filter(Boolean), footer: s.invoiceFooter },
       { writer: demo.staff.writer }, env().APP_TIME_ZONE,
-      TARGETS.invoices - demo.counts.invoices - past.length, past.length,
+      targets.invoices - demo.counts.invoices - past.length, past.length,
     );
     const ctx: VisitContext = {
       w, rng, now, demo, invoices: invoicesWriter,
-      left: { lines: TARGETS.lines - demo.counts.lines, decisions: TARGETS.decisions - demo.counts.decisions, pastVisits: past.length },
+      left: { lines: targets.lines - demo.counts.lines, decisions: targets.decisions - demo.counts.decisions, pastVisits: past.length },
     };
     const pool: PoolLine[] = [];
     let bigVisitId = "";
@@ -90,10 +118,11 @@ export async function generateBigDatabase(url: string, log: (line: string) => vo
     for (const v of visits) {
       if (v.kind === "big") {
         bigVisitId = v.id;
-        await writeBigVisit(ctx, v);
+        // Its own seed: the same 250 lines whichever database it is written into.
+        await writeBigVisit({ ...ctx, rng: new Rng(250) }, v);
       } else if (v.kind === "pool") {
         const approver = demo.township.approvers[pool.length % 2 === 0 ? 0 : 1]!;
-        pool.push(...(await writePoolVisit(ctx, v, TARGETS.poolLinesPerVisit, approver.id)));
+        pool.push(...(await writePoolVisit(ctx, v, targets.poolLinesPerVisit, approver.id)));
       } else if (v.kind === "open") await writeOpenVisit(ctx, v);
     }
     for (const v of past) await writePastVisit(ctx, v);
@@ -106,7 +135,8 @@ export async function generateBigDatabase(url: string, log: (line: string) => vo
     await client.execute({ sql: "UPDATE counters SET value = ? WHERE name = 'invoice'", args: [lastInvoice] });
     log(`  rows written in ${((performance.now() - started) / 1000).toFixed(1)} s`);
 
-    await setBudgets(db, accounts, demo.township.id);
+    // The demo keeps its own budgets; the big database's are set from what its history spent.
+    if (scale === "big") await setBudgets(db, accounts, demo.township.id);
     await client.execute("PRAGMA journal_mode = WAL");
     const counts: Record<string, number> = {};
     for (const table of ["accounts", "units", "work_orders", "estimate_lines", "decisions", "invoices", "invoice_lines", "payments", "status_events", "meter_readings", "findings"]) {
@@ -150,11 +180,17 @@ async function setBudgets(db: ReturnType<typeof drizzle<typeof schema>>, all: { 
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const outArg = process.argv.indexOf("--out");
-  const file = path.resolve(outArg > 0 ? process.argv[outArg + 1]! : "tests/.artifacts/bench/big.db");
-  const seeded = prepareDemoFile(file);
-  console.log(`demo database (migrated and seeded) in ${seeded.toFixed(1)} s`);
-  const manifest = await generateBigDatabase(`file:${file}`, console.log);
-  writeFileSync(file.replace(/\.db$/, ".json"), JSON.stringify(manifest));
-  console.log(`big database at ${file} in ${manifest.seconds.toFixed(1)} s`, manifest.counts);
+  const arg = (name: string) => {
+    const i = process.argv.indexOf(name);
+    return i > 0 ? process.argv[i + 1] : undefined;
+  };
+  const scale: Scale = arg("--scale") === "demo" ? "demo" : "big";
+  const file = path.resolve(arg("--out") ?? `tests/.artifacts/bench/${scale}.db`);
+  const seededSeconds = prepareDemoFile(file);
+  const manifest = await generateDatabase(`file:${file}`, scale);
+  writeFileSync(manifestFile(file), JSON.stringify({ ...manifest, seededSeconds }));
+  console.log(`${scale} database at ${file}: migrated and seeded in ${seededSeconds.toFixed(1)} s, generated in ${manifest.seconds.toFixed(1)} s`);
+  console.log(`  ${Object.entries(manifest.counts).map(([k, v]) => `${k} ${v}`).join(", ")}`);
+  // The driver keeps a closed connection's file open until its statements are collected; end the process now.
+  process.exit(0);
 }

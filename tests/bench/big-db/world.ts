@@ -174,6 +174,7 @@ export async function addUnits(
   now: number,
 ): Promise<UnitInfo[]> {
   const out = [...demo.units];
+  if (targets.totalUnits <= out.length) return out;
   const existing = (accountId: string) => demo.units.filter((u) => u.accountId === accountId).length;
   const township = all.find((a) => a.township)!;
   const others = all.filter((a) => !a.township);
