@@ -1,15 +1,7 @@
 import { WORK_TEMPLATES } from "@/db/seed/done-lines";
-import type { LineKind } from "@/lib/domain";
 
-/** One line of a job as the shop would price it; invented parts, numbers and prices. */
-export interface LineTemplate {
-  kind: LineKind;
-  description: string;
-  partNumber?: string;
-  quantityMilli: number;
-  unitPriceCents: number;
-  coreChargeCents?: number;
-}
+/** One line of a job as the shop would price it (the demo seed's own shape); invented parts, numbers and prices. */
+export type LineTemplate = (typeof WORK_TEMPLATES)[string][number];
 
 export interface Job {
   title: string;

@@ -9,9 +9,7 @@ import type { BulkWriter } from "./bulk";
 import type { GenLine } from "./lines";
 import type { Visit } from "./plan";
 import type { Rng } from "./rng";
-
-const HOUR = 3_600_000;
-const DAY = 24 * HOUR;
+import { DAY_MS, HOUR_MS } from "./world";
 
 type InvoiceRow = typeof invoices.$inferInsert;
 
@@ -63,15 +61,15 @@ export class InvoiceWriter {
     const voided = this.rng.chance(this.voidsLeft / Math.max(1, this.visitsLeft));
     this.visitsLeft -= 1;
     // Issued a few hours to six days after release, and never in the future.
-    const latest = Math.max(releasedAt + 10 * 60_000, this.now - HOUR);
-    let issuedAt = Math.min(releasedAt + this.rng.int(1, 6 * 24) * HOUR, releasedAt + this.rng.next() * (latest - releasedAt));
+    const latest = Math.max(releasedAt + 10 * 60_000, this.now - HOUR_MS);
+    let issuedAt = Math.min(releasedAt + this.rng.int(1, 6 * 24) * HOUR_MS, releasedAt + this.rng.next() * (latest - releasedAt));
     let replaces: string | null = null;
     if (voided) {
       this.voidsLeft -= 1;
       const first = bulkId();
-      const reissuedAt = Math.min(issuedAt + this.rng.int(2, 12) * DAY, issuedAt + (this.now - issuedAt) / 2);
+      const reissuedAt = Math.min(issuedAt + this.rng.int(2, 12) * DAY_MS, issuedAt + (this.now - issuedAt) / 2);
       await this.header(first, v, draft, issuedAt, poNumber ? `${poNumber}-OLD` : null, {
-        status: "void", voidedAt: new Date(reissuedAt - 2 * HOUR).toISOString(), voidedBy: this.people.writer,
+        status: "void", voidedAt: new Date(reissuedAt - 2 * HOUR_MS).toISOString(), voidedBy: this.people.writer,
         voidReason: "Carried the wrong PO number; re-issued with the right one.",
       });
       replaces = first;
@@ -122,14 +120,14 @@ export class InvoiceWriter {
 
   /** Older invoices are mostly paid; recent ones open or part paid. Returns what was paid. */
   private async pay(invoiceId: string, v: Visit, totalCents: number, issuedAt: number): Promise<number> {
-    const age = (this.now - issuedAt) / DAY;
+    const age = (this.now - issuedAt) / DAY_MS;
     const r = this.rng.next();
     const full = age > 75 ? r < 0.96 : age > 30 ? r < 0.6 : r < 0.2;
     const part = !full && age > 20 && r < 0.8;
     if (!full && !part) return 0;
     const amount = full ? totalCents : Math.max(100, Math.round((totalCents * 0.4) / 100) * 100);
-    const receivedAt = issuedAt + this.rng.int(5, Math.max(6, Math.min(60, Math.floor(age)))) * DAY + this.rng.int(0, 86_399) * 1_000;
-    if (receivedAt > this.now - HOUR) return 0;
+    const receivedAt = issuedAt + this.rng.int(5, Math.max(6, Math.min(60, Math.floor(age)))) * DAY_MS + this.rng.int(0, 86_399) * 1_000;
+    if (receivedAt > this.now - HOUR_MS) return 0;
     const method: PaymentMethod = this.rng.pick(["cheque", "cheque", "transfer", "card"] as const);
     const paymentId = bulkId();
     await this.w.add(payments, {

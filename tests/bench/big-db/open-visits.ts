@@ -3,9 +3,7 @@ import { JOBS, SMALL_LINES } from "./catalogue";
 import { amountOf, diagnosisTemplate, newLine, pickTemplates, priced, writeDecision, writeLines, type GenLine } from "./lines";
 import type { Visit } from "./plan";
 import { approverFor, lineContext, openSteps, poFor, writeVisitShell, type VisitContext } from "./visit-writer";
-
-const HOUR = 3_600_000;
-const iso = (ms: number) => new Date(ms).toISOString();
+import { HOUR_MS, iso } from "./world";
 
 /** A line of the approvals benchmark: proposed, at this version, for this approver to decide. */
 export interface PoolLine {
@@ -28,7 +26,7 @@ export async function writeOpenVisit(ctx: VisitContext, v: Visit): Promise<void>
     steps, poNumber: poFor(rng, v, 0.3), findings: v.status === "checked_in" ? 0 : rng.int(1, 2),
   });
   const lines: GenLine[] = [];
-  const diagAt = v.openedAt + HOUR;
+  const diagAt = v.openedAt + HOUR_MS;
   if (v.status !== "checked_in") {
     lines.push(newLine(priced(rng, diagnosisTemplate(v.account.standingAuthorisationCents), v.openedAt, ctx.now), {
       isDiagnosis: true, byStanding: true, state: v.status === "diagnosing" ? "in_progress" : "done", version: 3, approvedAt: iso(diagAt),
@@ -45,8 +43,8 @@ export async function writeOpenVisit(ctx: VisitContext, v: Visit): Promise<void>
   }
   const approved = lines.filter((l) => !l.byStanding && l.state !== "proposed");
   const approver = approverFor(v, approved.reduce((s, l) => s + amountOf(l), 0));
-  const decidedAt = iso(v.openedAt + 6 * HOUR);
-  const lc = lineContext(ctx, v, v.openedAt + HOUR, ctx.now - HOUR);
+  const decidedAt = iso(v.openedAt + 6 * HOUR_MS);
+  const lc = lineContext(ctx, v, v.openedAt + HOUR_MS, ctx.now - HOUR_MS);
   for (const l of lines) {
     l.concernId = concernIds[0] ?? null;
     if (l.byStanding) await writeDecision(lc, l, { decision: "approve", byUserId: null, byStanding: true, lineVersion: 2, at: iso(diagAt) });
@@ -74,14 +72,14 @@ export async function writePoolVisit(ctx: VisitContext, v: Visit, lineCount: num
     complaints: [{ complaint: "Pre-season walk-around before plowing.", cause: "Worn and broken small parts found on the walk-around.", correction: "" }],
     steps, poNumber: poFor(rng, v, 1), findings: 1,
   });
-  const diagAt = iso(v.openedAt + HOUR);
+  const diagAt = iso(v.openedAt + HOUR_MS);
   const lines: GenLine[] = [newLine(priced(rng, diagnosisTemplate(v.account.standingAuthorisationCents), v.openedAt, ctx.now), {
     isDiagnosis: true, byStanding: true, state: "done", version: 3, approvedAt: diagAt, concernId: concernIds[0] ?? null,
   })];
   for (let i = 1; i < lineCount; i++) lines.push(newLine(priced(rng, SMALL_LINES[i % SMALL_LINES.length]!, v.openedAt, ctx.now), { concernId: concernIds[0] ?? null }));
   const waiting = lines.slice(1).reduce((sum, l) => sum + amountOf(l), 0);
   if (waiting > 450_000) throw new Error(`pool visit ${v.number} waits on ${waiting} cents, past the supervisor's signing limit`);
-  const lc = lineContext(ctx, v, v.openedAt + HOUR, ctx.now - HOUR);
+  const lc = lineContext(ctx, v, v.openedAt + HOUR_MS, ctx.now - HOUR_MS);
   await writeDecision(lc, lines[0]!, { decision: "approve", byUserId: null, byStanding: true, lineVersion: 2, at: diagAt });
   await writeLines(lc, lines);
   ctx.left.lines -= lines.length;
@@ -103,8 +101,8 @@ export async function writeBigVisit(ctx: VisitContext, v: Visit, lineCount = 250
   const { concernIds } = await writeVisitShell(ctx, v, {
     title: "Rebuild before winter: brakes, hydraulics, steering, electrical", complaints, steps, poNumber: poFor(rng, v, 1), findings: 6,
   });
-  const diagAt = v.openedAt + HOUR;
-  const decidedAt = v.openedAt + 20 * HOUR;
+  const diagAt = v.openedAt + HOUR_MS;
+  const decidedAt = v.openedAt + 20 * HOUR_MS;
   const lines: GenLine[] = [newLine(priced(rng, diagnosisTemplate(v.account.standingAuthorisationCents), v.openedAt, ctx.now), {
     isDiagnosis: true, byStanding: true, state: "done", version: 3, approvedAt: iso(diagAt),
   })];
@@ -114,7 +112,7 @@ export async function writeBigVisit(ctx: VisitContext, v: Visit, lineCount = 250
     const state: LineState = i < 60 ? (i % 3 === 0 ? "in_progress" : "approved") : i < 80 ? "declined" : i < 90 ? "held" : "proposed";
     lines.push(newLine(priced(rng, t, v.openedAt, ctx.now), { state, version: state === "proposed" ? 2 : 3 }));
   });
-  const lc = lineContext(ctx, v, v.openedAt + HOUR, ctx.now - HOUR);
+  const lc = lineContext(ctx, v, v.openedAt + HOUR_MS, ctx.now - HOUR_MS);
   let decided = 0;
   for (const [i, l] of lines.entries()) {
     l.concernId = concernIds[i % concernIds.length] ?? null;

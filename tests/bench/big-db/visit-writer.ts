@@ -8,10 +8,7 @@ import type { InvoiceWriter } from "./invoices";
 import { amountOf, diagnosisTemplate, newLine, pickTemplates, priced, writeDecision, writeLines, type GenLine, type LineContext } from "./lines";
 import type { Visit } from "./plan";
 import type { Rng } from "./rng";
-import { DAY_MS } from "./world";
-
-const HOUR = 3_600_000;
-const iso = (ms: number) => new Date(ms).toISOString();
+import { DAY_MS, HOUR_MS, iso } from "./world";
 
 /** How many lines and decisions are still to write, so the totals land on the targets. */
 export interface Remaining {
@@ -62,7 +59,7 @@ export async function writeVisitShell(
     });
   }
   for (let i = 0; i < o.findings; i++) {
-    const at = iso(v.openedAt + (1 + i) * HOUR);
+    const at = iso(v.openedAt + (1 + i) * HOUR_MS);
     const severity: Severity = rng.chance(0.03) ? "out_of_service" : rng.pick(["fix_now", "plan", "plan", "note"] as const);
     await w.add(findings, {
       id: bulkId(), workOrderId: v.id, concernId: concernIds[i % concernIds.length] ?? null, title: `${rng.pick(JOBS).complaint.replace(/\.$/, "")} (finding ${i + 1})`,
@@ -107,17 +104,17 @@ export async function writePastVisit(ctx: VisitContext, v: Visit): Promise<void>
   const pDouble = left.lines > 0 ? extraDecisions / left.lines : 0;
 
   const t0 = v.openedAt;
-  const wa = t0 + rng.int(3, 8) * HOUR;
-  const decided = wa + rng.int(1, 20) * HOUR;
+  const wa = t0 + rng.int(3, 8) * HOUR_MS;
+  const decided = wa + rng.int(1, 20) * HOUR_MS;
   const parts = rng.chance(0.25);
-  const repairing = decided + (parts ? rng.int(24, 72) : 1) * HOUR;
+  const repairing = decided + (parts ? rng.int(24, 72) : 1) * HOUR_MS;
   const finalCheck = rng.chance(0.5);
-  const ready = repairing + rng.int(4, 30) * HOUR + (finalCheck ? 2 * HOUR : 0);
-  const releasedAt = Math.min(ready + rng.int(2, 48) * HOUR, ctx.now - HOUR);
-  const steps: Step[] = [["checked_in", t0, "Unit checked in."], ["diagnosing", t0 + HOUR, ""], ["waiting_approval", wa, "Estimate sent."]];
-  if (parts) steps.push(["waiting_parts", decided + HOUR, "Parts on order."]);
+  const ready = repairing + rng.int(4, 30) * HOUR_MS + (finalCheck ? 2 * HOUR_MS : 0);
+  const releasedAt = Math.min(ready + rng.int(2, 48) * HOUR_MS, ctx.now - HOUR_MS);
+  const steps: Step[] = [["checked_in", t0, "Unit checked in."], ["diagnosing", t0 + HOUR_MS, ""], ["waiting_approval", wa, "Estimate sent."]];
+  if (parts) steps.push(["waiting_parts", decided + HOUR_MS, "Parts on order."]);
   steps.push(["repairing", repairing, ""]);
-  if (finalCheck) steps.push(["final_check", ready - 2 * HOUR, "Road test."]);
+  if (finalCheck) steps.push(["final_check", ready - 2 * HOUR_MS, "Road test."]);
   steps.push(["ready", ready, "Ready for pickup."], ["released", releasedAt, "Released to the driver."]);
 
   const diag = rng.chance(0.5);
@@ -139,18 +136,18 @@ export async function writePastVisit(ctx: VisitContext, v: Visit): Promise<void>
   });
   const approvedTotal = lines.filter((l) => l.state === "done" && !l.byStanding).reduce((s, l) => s + amountOf(l), 0);
   const approver = approverFor(v, approvedTotal);
-  const lc = lineContext(ctx, v, t0 + 2 * HOUR, releasedAt);
+  const lc = lineContext(ctx, v, t0 + 2 * HOUR_MS, releasedAt);
   let decisionsWritten = 0;
   for (const l of lines) {
     if (l.byStanding) {
-      l.approvedAt = iso(t0 + 2 * HOUR);
+      l.approvedAt = iso(t0 + 2 * HOUR_MS);
       await writeDecision(lc, l, { decision: "approve", byUserId: null, byStanding: true, lineVersion: 2, at: l.approvedAt });
       decisionsWritten += 1;
       continue;
     }
     if (l.state === "done" && rng.chance(pDouble)) {
       // Held at first, approved once the fleet had looked again.
-      await writeDecision(lc, l, { decision: "hold", byUserId: approver, lineVersion: 2, at: iso(wa + HOUR), note: "Checking the budget first." });
+      await writeDecision(lc, l, { decision: "hold", byUserId: approver, lineVersion: 2, at: iso(wa + HOUR_MS), note: "Checking the budget first." });
       l.version = 4;
       decisionsWritten += 1;
     }
@@ -171,6 +168,6 @@ export async function writePastVisit(ctx: VisitContext, v: Visit): Promise<void>
 /** Steps from check-in up to the visit's current status, spread from opening to an hour ago. */
 export function openSteps(v: Visit, now: number): Step[] {
   const upto = WORK_ORDER_STATUSES.slice(0, WORK_ORDER_STATUSES.indexOf(v.status) + 1);
-  const span = (now - HOUR - v.openedAt) / Math.max(1, upto.length - 1);
+  const span = (now - HOUR_MS - v.openedAt) / Math.max(1, upto.length - 1);
   return upto.map((s, i) => [s, v.openedAt + span * i, i === 0 ? "Unit checked in." : s === "waiting_approval" ? "Estimate sent." : ""]);
 }

@@ -99,7 +99,9 @@ const LAST = ["Ashdown", "Brill", "Corrow", "Dunmore", "Eakin", "Fallow", "Gantr
 
 const slug = (text: string) => text.toLowerCase().replace(/[^a-z0-9]+/g, "-").replace(/(^-|-$)/g, "");
 
-export const DAY_MS = 86_400_000;
+export const HOUR_MS = 3_600_000;
+export const DAY_MS = 24 * HOUR_MS;
+export const iso = (ms: number) => new Date(ms).toISOString();
 export const HISTORY_DAYS = 6 * 365;
 
 /** Adds invented fleet accounts (each with an approver and a clerk) until there are `total`. */
@@ -131,7 +133,7 @@ export async function addAccounts(w: BulkWriter, rng: Rng, demo: DemoWorld, tota
       overrunCapCents: 5_000,
       overrunFloorCents: 0,
       billingEmail: `clerk@${domain}`,
-      phone: `(555) 01${String(i % 100).padStart(2, "0")}-${String(1000 + i * 13).slice(-4)}`,
+      phone: `(555) 0${10 + (i % 90)}-${String(1000 + i * 13).slice(-4)}`,
       address: `${10 + i} ${rng.pick(["Depot", "Mill", "Garage", "County"])} Road\n${place}`,
       contactName: `${rng.pick(FIRST)} ${rng.pick(LAST)}`,
       approvers: [],
