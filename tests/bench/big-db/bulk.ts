@@ -16,7 +16,6 @@ export class BulkWriter {
   private tx: Transaction | null = null;
   private readonly buffers = new Map<SQLiteTable, { columns: string[]; rows: Record<string, unknown>[] }>();
   private sinceCommit = 0;
-  readonly counts = new Map<string, number>();
 
   constructor(
     private readonly client: Client,
@@ -60,8 +59,6 @@ export class BulkWriter {
     const sql = `INSERT INTO "${getTableName(table)}" (${names}) SELECT ${picks} FROM json_each(?)`;
     const tx = await this.transaction();
     await tx.execute({ sql, args: [JSON.stringify(tuples)] });
-    const name = getTableName(table);
-    this.counts.set(name, (this.counts.get(name) ?? 0) + buffer.rows.length);
     this.sinceCommit += buffer.rows.length;
     buffer.rows = [];
   }

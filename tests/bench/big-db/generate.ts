@@ -113,6 +113,7 @@ export async function generateDatabase(url: string, scale: Scale, log: (line: st
       left: { lines: targets.lines - demo.counts.lines, decisions: targets.decisions - demo.counts.decisions, pastVisits: past.length },
     };
     const pool: PoolLine[] = [];
+    let poolVisits = 0;
     let bigVisitId = "";
     // Open visits first (their lines are fixed), then the history takes what is left of the totals.
     for (const v of visits) {
@@ -121,7 +122,8 @@ export async function generateDatabase(url: string, scale: Scale, log: (line: st
         // Its own seed: the same 250 lines whichever database it is written into.
         await writeBigVisit({ ...ctx, rng: new Rng(250) }, v);
       } else if (v.kind === "pool") {
-        const approver = demo.township.approvers[pool.length % 2 === 0 ? 0 : 1]!;
+        // Visits alternate between the road supervisor and the trustee.
+        const approver = demo.township.approvers[poolVisits++ % 2]!;
         pool.push(...(await writePoolVisit(ctx, v, targets.poolLinesPerVisit, approver.id)));
       } else if (v.kind === "open") await writeOpenVisit(ctx, v);
     }
@@ -187,7 +189,7 @@ if (import.meta.url === `file://${process.argv[1]}`) {
   const scale: Scale = arg("--scale") === "demo" ? "demo" : "big";
   const file = path.resolve(arg("--out") ?? `tests/.artifacts/bench/${scale}.db`);
   const seededSeconds = prepareDemoFile(file);
-  const manifest = await generateDatabase(`file:${file}`, scale);
+  const manifest = await generateDatabase(`file:${file}`, scale, console.log);
   writeFileSync(manifestFile(file), JSON.stringify({ ...manifest, seededSeconds }));
   console.log(`${scale} database at ${file}: migrated and seeded in ${seededSeconds.toFixed(1)} s, generated in ${manifest.seconds.toFixed(1)} s`);
   console.log(`  ${Object.entries(manifest.counts).map(([k, v]) => `${k} ${v}`).join(", ")}`);

@@ -1,3 +1,4 @@
+import type { Request } from "autocannon";
 import type { PoolLine } from "../big-db/open-visits";
 import { countApproved, type Fixtures } from "./fixtures";
 import { load, type LoadResult } from "./load";
@@ -26,7 +27,7 @@ export async function runApprovals(
 ): Promise<ApprovalsResult> {
   const queue = [...pool];
   const sent: string[] = [];
-  const next = (request: import("autocannon").Request) => {
+  const next = (request: Request) => {
     const line = queue.shift();
     if (!line) return null;
     sent.push(line.lineId);

@@ -36,6 +36,7 @@ export async function load(o: LoadOptions): Promise<LoadResult> {
     ...(o.amount ? { amount: o.amount } : { duration: o.duration ?? 10 }),
     headers: o.headers,
     method: o.method ?? "GET",
+    // autocannon takes a falsy request as "none left"; its types do not say so.
     requests: o.setupRequest ? [{ setupRequest: o.setupRequest as (r: Request) => Request }] : undefined,
   });
   const ok = result["2xx"];
