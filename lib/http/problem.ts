@@ -1,3 +1,5 @@
+import type { ProblemCode } from "@/lib/api-schema/problem-codes";
+
 /**
  * Errors as RFC 9457 problem documents. Route handlers and server actions throw
  * HttpError; the guard turns it into application/problem+json or a form result.
@@ -10,7 +12,7 @@ export interface FieldProblem {
 export class HttpError extends Error {
   constructor(
     readonly status: number,
-    readonly code: string,
+    readonly code: ProblemCode,
     readonly title: string,
     readonly detail: string,
     readonly errors?: FieldProblem[],
@@ -32,7 +34,7 @@ export const notFound = (what = "That item") =>
 export const invalidInput = (errors: FieldProblem[], detail = "Some values are missing or not valid.") =>
   new HttpError(400, "invalid_input", "Invalid input", detail, errors);
 
-export const conflict = (code: string, detail: string, extra?: Record<string, unknown>) =>
+export const conflict = (code: ProblemCode, detail: string, extra?: Record<string, unknown>) =>
   new HttpError(409, code, "Conflict", detail, undefined, extra);
 
 export function problemBody(error: HttpError) {
