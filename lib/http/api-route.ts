@@ -109,4 +109,5 @@ export function errorResponse(error: unknown): Response {
   );
 }
 
-export const idParams = z.object({ id: z.string().min(1).max(64) });
+// Kept here too, where every route imports it from; defined with the other route inputs.
+export { idParams } from "@/lib/validation/api-queries";

@@ -1,16 +1,15 @@
-import { z } from "zod";
 import { createAccount } from "@/db/queries/account-writes";
 import { getAccountForApi, listAccountsForApi } from "@/db/queries/accounts";
 import { CAN } from "@/lib/auth/policy";
 import { apiRoute } from "@/lib/http/api-route";
-import { pageQuery } from "@/lib/http/pagination";
 import { accountCreateApiInput } from "@/lib/validation/account";
+import { accountListQuery } from "@/lib/validation/api-queries";
 
 export const dynamic = "force-dynamic";
 
 /** The shop sees every account (archived ones with ?archived=true), a fleet person their own. */
 export const GET = apiRoute(
-  { roles: CAN.anyone, query: pageQuery.extend({ archived: z.enum(["true", "false"]).optional().transform((v) => v === "true") }) },
+  { roles: CAN.anyone, query: accountListQuery },
   ({ user, query }) => listAccountsForApi(user, query),
 );
 

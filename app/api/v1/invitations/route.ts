@@ -1,14 +1,14 @@
-import { z } from "zod";
 import { pendingInvitations } from "@/db/queries/invitations";
 import { CAN } from "@/lib/auth/policy";
 import { apiRoute } from "@/lib/http/api-route";
 import { inviteWithMail } from "@/lib/notifications/people";
+import { invitationListQuery } from "@/lib/validation/api-queries";
 import { invitationApiInput } from "@/lib/validation/people";
 
 export const dynamic = "force-dynamic";
 
 /** Invitations still waiting (not accepted, not withdrawn), optionally of one account. Shop staff who invite. */
-export const GET = apiRoute({ roles: CAN.manageAccounts, query: z.object({ accountId: z.string().min(1).max(64).optional() }) }, async ({ query }) => ({
+export const GET = apiRoute({ roles: CAN.manageAccounts, query: invitationListQuery }, async ({ query }) => ({
   invitations: await pendingInvitations(query.accountId),
 }));
 

@@ -1,14 +1,11 @@
-import { z } from "zod";
 import { createUnit } from "@/db/queries/unit-writes";
 import { listUnits } from "@/db/queries/units";
 import { CAN } from "@/lib/auth/policy";
 import { apiRoute } from "@/lib/http/api-route";
-import { pageQuery } from "@/lib/http/pagination";
+import { unitListQuery } from "@/lib/validation/api-queries";
 import { unitCreateInput } from "@/lib/validation/unit";
 
 export const dynamic = "force-dynamic";
-
-const flag = z.enum(["true", "false"]).optional().transform((v) => v === "true");
 
 /**
  * The caller's units, by unit number. `q` matches the unit number, any 3+
@@ -18,12 +15,7 @@ const flag = z.enum(["true", "false"]).optional().transform((v) => v === "true")
 export const GET = apiRoute(
   {
     roles: CAN.anyone,
-    query: pageQuery.extend({
-      inShop: flag,
-      retired: flag,
-      q: z.string().trim().max(100).optional(),
-      accountId: z.string().min(1).max(64).optional(),
-    }),
+    query: unitListQuery,
   },
   ({ user, query }) => listUnits(user, query),
 );

@@ -1,16 +1,12 @@
-import { z } from "zod";
 import { checkIn } from "@/db/queries/check-in";
 import { listOpenWorkOrders } from "@/db/queries/work-order-list";
 import { CAN } from "@/lib/auth/policy";
-import { WORK_ORDER_STATUSES } from "@/lib/domain";
 import { apiRoute } from "@/lib/http/api-route";
-import { pageQuery } from "@/lib/http/pagination";
 import { checkedInNotice } from "@/lib/notifications/visits";
+import { workOrderListQuery } from "@/lib/validation/api-queries";
 import { checkInInput } from "@/lib/validation/visit";
 
 export const dynamic = "force-dynamic";
-
-const day = z.iso.date("Write the date as YYYY-MM-DD.").optional();
 
 /**
  * Open work orders by default; `all=true` reaches past visits. Filters:
@@ -19,14 +15,7 @@ const day = z.iso.date("Write the date as YYYY-MM-DD.").optional();
 export const GET = apiRoute(
   {
     roles: CAN.anyone,
-    query: pageQuery.extend({
-      status: z.enum(WORK_ORDER_STATUSES).optional(),
-      all: z.enum(["true", "false"]).optional().transform((v) => v === "true"),
-      accountId: z.string().min(1).max(64).optional(),
-      technicianId: z.string().min(1).max(64).optional(),
-      openedFrom: day,
-      openedTo: day,
-    }),
+    query: workOrderListQuery,
   },
   ({ user, query }) => listOpenWorkOrders(user, query),
 );

@@ -1,17 +1,14 @@
-import { z } from "zod";
 import { addOccurrence, getOccurrence, listOccurrences } from "@/db/queries/occurrences";
 import { CAN } from "@/lib/auth/policy";
 import { apiRoute, idParams } from "@/lib/http/api-route";
-import { pageQuery } from "@/lib/http/pagination";
 import { queueOccurrenceNotice } from "@/lib/mail/notify-occurrence";
+import { occurrenceListQuery } from "@/lib/validation/api-queries";
 import { occurrenceInput } from "@/lib/validation/occurrence";
 
 export const dynamic = "force-dynamic";
 
-const listQuery = pageQuery.extend({ concernId: z.string().min(1).max(64).optional() });
-
 /** The unit's occurrence log, newest first, with its intermittent concerns (api-v1.md). */
-export const GET = apiRoute({ roles: CAN.logOccurrence, params: idParams, query: listQuery }, async ({ user, params, query }) =>
+export const GET = apiRoute({ roles: CAN.logOccurrence, params: idParams, query: occurrenceListQuery }, async ({ user, params, query }) =>
   listOccurrences(user, params.id, query),
 );
 

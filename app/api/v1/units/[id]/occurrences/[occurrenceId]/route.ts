@@ -1,13 +1,11 @@
-import { z } from "zod";
 import { getOccurrence, updateOccurrence } from "@/db/queries/occurrences";
 import { CAN } from "@/lib/auth/policy";
 import { apiRoute } from "@/lib/http/api-route";
 import { notFound } from "@/lib/http/problem";
+import { occurrenceParams as params } from "@/lib/validation/api-queries";
 import { occurrencePatch } from "@/lib/validation/occurrence";
 
 export const dynamic = "force-dynamic";
-
-const params = z.object({ id: z.string().min(1).max(64), occurrenceId: z.string().min(1).max(64) });
 
 export const GET = apiRoute({ roles: CAN.logOccurrence, params }, async ({ user, params: p }) => {
   const row = await getOccurrence(user, p.id, p.occurrenceId);
