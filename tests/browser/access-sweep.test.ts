@@ -21,6 +21,7 @@ const PUBLIC = new Set([
   "/sign-in",
   "/",
   "/api/v1/health",
+  "/api/v1/openapi.json",
   "/api/auth/[...nextauth]",
   "/api/uploadthing",
   "/api/webhooks/stripe",
