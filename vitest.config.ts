@@ -3,7 +3,15 @@ import { defineConfig } from "vitest/config";
 const root = import.meta.dirname;
 
 export default defineConfig({
-  resolve: { alias: { "@": root } },
+  resolve: {
+    alias: {
+      "@": root,
+      // `server-only` throws unless resolved under React's "react-server" condition, which Next sets
+      // for server code. Tests import server modules directly, so they get the package's own empty
+      // module (what that condition resolves to) instead of switching React itself to its server build.
+      "server-only": `${root}/node_modules/server-only/empty.js`,
+    },
+  },
   test: {
     projects: [
       {
