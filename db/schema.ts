@@ -627,7 +627,7 @@ export const MAIL_STATUSES = ["queued", "sending", "sent", "failed"] as const;
 /**
  * Every e-mail the app sends, one row per recipient: written in the same
  * transaction as the change that causes it, then sent by the mail worker with
- * retries (lib/mail/worker.ts). A row with a group key collects several
+ * retries (lib/server/mail/worker.ts). A row with a group key collects several
  * events (decisions on one work order for one person) into one message until
  * its send-after time.
  */

@@ -3,7 +3,7 @@
 import { useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
 import type { LineView, WorkOrderView } from "@/db/queries/work-order-view";
-import { passLinesOnAction } from "@/lib/actions/pass-on";
+import { passLinesOnAction } from "@/lib/server/actions/pass-on";
 import { describeLeftLines, planApproveWhatFits } from "@/lib/estimate";
 import { formatCents } from "@/lib/money";
 

@@ -5,8 +5,8 @@ import type { SessionUser } from "@/lib/auth/session-user";
 import { invoiceLabel, workOrderLabel } from "@/lib/domain";
 import { conflict, HttpError, notFound } from "@/lib/http/problem";
 import { balanceOf } from "@/lib/invoices/balance";
-import { appUrl } from "@/lib/mail/send";
-import { createCheckoutSession, isServiceUnavailable, retrieveCheckoutSession } from "@/lib/payments/stripe";
+import { appUrl } from "@/lib/server/mail/send";
+import { createCheckoutSession, isServiceUnavailable, retrieveCheckoutSession } from "@/lib/server/payments/stripe";
 import { recordAudit } from "./audit";
 import { scopedTo } from "./scope";
 

@@ -1,7 +1,7 @@
 import sharp from "sharp";
 import { UTApi, UTFile } from "uploadthing/server";
 import { cleanPhoto } from "@/lib/uploads/clean-photo";
-import { utApi } from "@/lib/uploads/ut-api";
+import { utApi } from "@/lib/server/uploads/ut-api";
 import { startFakeUploadThing } from "@/mocks/uploadthing/server";
 import { fakeStorageDir } from "@/mocks/uploadthing/storage-dir";
 import { DEMO_DRAWINGS, type DemoDrawing } from "./demo-drawings";

@@ -16,7 +16,7 @@ import { recordManualPayment, voidInvoice } from "@/db/queries/payments";
 import { creditNotes, invoices } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
-import { queueCreditNote } from "@/lib/mail/invoice-notices";
+import { queueCreditNote } from "@/lib/server/notifications/invoices";
 import { formatCents } from "@/lib/money";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { call } from "./helpers/app";

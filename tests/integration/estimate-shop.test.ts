@@ -6,8 +6,8 @@ import { addLine, bringBackDeferred, editLine } from "@/db/queries/estimate-line
 import { sendEstimate, startUnderStanding } from "@/db/queries/estimate-send";
 import { accounts, auditLog, estimateLines, workOrders } from "@/db/schema";
 import { getDb, writeTx } from "@/db/client";
-import { deliverDueMail } from "@/lib/mail/worker";
-import { DECISION_MAIL_WINDOW_MS, queueDecisionMade, queueEstimateReady, queueLineReopened } from "@/lib/notifications/estimate";
+import { deliverDueMail } from "@/lib/server/mail/worker";
+import { DECISION_MAIL_WINDOW_MS, queueDecisionMade, queueEstimateReady, queueLineReopened } from "@/lib/server/notifications/estimate";
 import { sessionUser } from "./helpers/app";
 import { mailCatcherForFile } from "./helpers/fake-smtp";
 import { lineByDescription, linesOf, workOrderByNumber } from "./helpers/work-orders";

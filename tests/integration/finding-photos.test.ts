@@ -17,7 +17,7 @@ import { GET as utGet, POST as utPost } from "@/app/api/uploadthing/route";
 import { getDb } from "@/db/client";
 import { photos, workOrders } from "@/db/schema";
 import { jpegHasGps } from "@/lib/uploads/exif-gps";
-import type { PhotoUploadResult } from "@/lib/uploads/store-photo";
+import type { PhotoUploadResult } from "@/lib/server/uploads/store-photo";
 import { call, sessionCookie } from "./helpers/app";
 import { startUploadFake, type UploadFake } from "./helpers/fake-uploads";
 import { installNodeXhr } from "./helpers/node-xhr";

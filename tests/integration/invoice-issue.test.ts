@@ -9,7 +9,7 @@ import { voidInvoice } from "@/db/queries/payments";
 import { accounts, concerns, counters, estimateLines, invoices, workOrders } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { HttpError } from "@/lib/http/problem";
-import { queueInvoiceIssued } from "@/lib/mail/invoice-notices";
+import { queueInvoiceIssued } from "@/lib/server/notifications/invoices";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { call } from "./helpers/app";
 import { allInvoiceNumbers, asUser, setLines, workOrderByNumber } from "./helpers/billing";

@@ -20,7 +20,7 @@ import { getDb } from "@/db/client";
 import { mailOutbox, occurrences, photos, units, workOrders } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { jpegHasGps } from "@/lib/uploads/exif-gps";
-import type { PhotoUploadResult } from "@/lib/uploads/store-photo";
+import type { PhotoUploadResult } from "@/lib/server/uploads/store-photo";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { startFakeUploadThing, type FakeUploadThing } from "@/mocks/uploadthing/server";
 import { call, sessionCookie, userByEmail, type Problem } from "./helpers/app";

@@ -4,8 +4,8 @@
 import { describe, expect, it } from "vitest";
 import { decide } from "@/db/queries/decisions";
 import { higherLimitApprovers, passLinesOn } from "@/db/queries/pass-on";
-import { deliverDueMail } from "@/lib/mail/worker";
-import { queuePassedOn } from "@/lib/notifications/pass-on";
+import { deliverDueMail } from "@/lib/server/mail/worker";
+import { queuePassedOn } from "@/lib/server/notifications/pass-on";
 import { sessionUser } from "./helpers/app";
 import { mailCatcherForFile } from "./helpers/fake-smtp";
 import { lineByDescription, linesOf, workOrderByNumber } from "./helpers/work-orders";

@@ -6,7 +6,7 @@ import { POST as complete } from "@/app/api/v1/password-resets/complete/route";
 import { POST as requestReset } from "@/app/api/v1/password-resets/route";
 import { getDb } from "@/db/client";
 import { passwordResets, users } from "@/db/schema";
-import { authOptions } from "@/lib/auth/options";
+import { authOptions } from "@/lib/server/auth/options";
 import { sha256Hex } from "@/lib/auth/tokens";
 import { call, sessionCookie, userByEmail } from "./helpers/app";
 import { catchMail } from "./helpers/mail";

@@ -7,7 +7,7 @@ import { closeDb } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
 import { seedDatabase } from "@/db/seed";
 import { resetEnvCache } from "@/lib/env";
-import { stopMailWorker } from "@/lib/mail/worker";
+import { stopMailWorker } from "@/lib/server/mail/worker";
 
 const dir = path.join(import.meta.dirname, "..", ".artifacts", "integration");
 mkdirSync(dir, { recursive: true });

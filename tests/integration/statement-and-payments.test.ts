@@ -17,7 +17,7 @@ import { accounts, invoices, units, users, workOrders } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { HttpError } from "@/lib/http/problem";
 import { CSV_COLUMNS } from "@/lib/invoices/csv";
-import { queuePaymentReceived } from "@/lib/mail/invoice-notices";
+import { queuePaymentReceived } from "@/lib/server/notifications/invoices";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { call, sessionUser, userByEmail } from "./helpers/app";
 import { asUser, setLines } from "./helpers/billing";

@@ -8,7 +8,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { hasAccounts } from "@/db/queries/accounts";
 import { listServiceRequests } from "@/db/queries/service-requests";
 import { listOpenWorkOrders } from "@/db/queries/work-order-list";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Floor" };

@@ -6,7 +6,7 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { readyToInvoice } from "@/db/queries/invoice-pages";
 import { listInvoices } from "@/db/queries/invoices";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 import { PAYMENT_STATE_LABELS, type PaymentState } from "@/lib/invoices/balance";

@@ -6,7 +6,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { Pager, UnitList } from "@/components/units/unit-list";
 import { accountChoices } from "@/db/queries/accounts";
 import { listUnits } from "@/db/queries/units";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { decodeCursor } from "@/lib/http/pagination";
 import { CAN, hasRole } from "@/lib/auth/policy";
 

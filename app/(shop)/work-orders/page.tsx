@@ -9,7 +9,7 @@ import { Pager } from "@/components/units/unit-list";
 import { accountChoices } from "@/db/queries/accounts";
 import { assignableStaff } from "@/db/queries/people";
 import { listOpenWorkOrders } from "@/db/queries/work-order-list";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { isCalendarDate } from "@/lib/dates";
 import { STATUS_LABELS, WORK_ORDER_STATUSES, type WorkOrderStatus } from "@/lib/domain";

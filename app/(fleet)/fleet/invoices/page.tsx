@@ -8,7 +8,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { waitingForPo } from "@/db/queries/invoice-pages";
 import { listInvoices } from "@/db/queries/invoices";
 import { getAccountName } from "@/db/queries/settings";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 

@@ -4,7 +4,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { ReportList } from "@/components/reports/report-list";
 import { Pager } from "@/components/units/unit-list";
 import { listServiceRequests } from "@/db/queries/service-requests";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { decodeCursor } from "@/lib/http/pagination";
 

@@ -5,7 +5,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { Pager, UnitList } from "@/components/units/unit-list";
 import { getAccountName } from "@/db/queries/settings";
 import { listUnits } from "@/db/queries/units";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { decodeCursor } from "@/lib/http/pagination";
 import { CAN } from "@/lib/auth/policy";
 

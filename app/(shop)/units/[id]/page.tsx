@@ -14,7 +14,7 @@ import { ChangeLog } from "@/components/accounts/change-log";
 import { ButtonLink } from "@/components/ui/button";
 import { auditTrail } from "@/db/queries/audit";
 import { getUnitDetail } from "@/db/queries/units";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { workOrderLabel } from "@/lib/domain";
 import { calendarDate } from "@/lib/format";

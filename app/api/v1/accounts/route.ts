@@ -2,7 +2,7 @@ import { z } from "zod";
 import { createAccount } from "@/db/queries/account-writes";
 import { getAccountForApi, listAccountsForApi } from "@/db/queries/accounts";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
+import { apiRoute } from "@/lib/server/http/api-route";
 import { pageQuery } from "@/lib/http/pagination";
 import { accountCreateApiInput } from "@/lib/validation/account";
 

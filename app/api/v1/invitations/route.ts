@@ -1,8 +1,8 @@
 import { z } from "zod";
 import { pendingInvitations } from "@/db/queries/invitations";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
-import { inviteWithMail } from "@/lib/notifications/people";
+import { apiRoute } from "@/lib/server/http/api-route";
+import { inviteWithMail } from "@/lib/server/notifications/people";
 import { invitationApiInput } from "@/lib/validation/people";
 
 export const dynamic = "force-dynamic";

@@ -2,7 +2,7 @@ import { z } from "zod";
 import { listInvoices } from "@/db/queries/invoices";
 import { CAN } from "@/lib/auth/policy";
 import { INVOICE_STATUSES } from "@/lib/domain";
-import { apiRoute } from "@/lib/http/api-route";
+import { apiRoute } from "@/lib/server/http/api-route";
 import { pageQuery } from "@/lib/http/pagination";
 
 export const dynamic = "force-dynamic";

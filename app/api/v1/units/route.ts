@@ -2,7 +2,7 @@ import { z } from "zod";
 import { createUnit } from "@/db/queries/unit-writes";
 import { listUnits } from "@/db/queries/units";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
+import { apiRoute } from "@/lib/server/http/api-route";
 import { pageQuery } from "@/lib/http/pagination";
 import { unitCreateInput } from "@/lib/validation/unit";
 

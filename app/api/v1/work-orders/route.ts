@@ -3,9 +3,9 @@ import { checkIn } from "@/db/queries/check-in";
 import { listOpenWorkOrders } from "@/db/queries/work-order-list";
 import { CAN } from "@/lib/auth/policy";
 import { WORK_ORDER_STATUSES } from "@/lib/domain";
-import { apiRoute } from "@/lib/http/api-route";
+import { apiRoute } from "@/lib/server/http/api-route";
 import { pageQuery } from "@/lib/http/pagination";
-import { checkedInNotice } from "@/lib/notifications/visits";
+import { checkedInNotice } from "@/lib/server/notifications/visits";
 import { checkInInput } from "@/lib/validation/visit";
 
 export const dynamic = "force-dynamic";

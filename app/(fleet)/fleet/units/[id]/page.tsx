@@ -11,7 +11,7 @@ import { UnitFacts } from "@/components/units/unit-facts";
 import { WorkOrderHistory } from "@/components/units/work-order-history";
 import { currentVisit } from "@/db/queries/finding-reads";
 import { getUnitDetail } from "@/db/queries/units";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { calendarDate } from "@/lib/format";
 

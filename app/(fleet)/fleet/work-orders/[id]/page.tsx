@@ -6,7 +6,7 @@ import { getDb } from "@/db/client";
 import { accounts } from "@/db/schema";
 import { higherLimitApprovers } from "@/db/queries/pass-on";
 import { workOrderView } from "@/db/queries/work-order-view";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { eq } from "drizzle-orm";
 

@@ -1,7 +1,7 @@
 import { updateUnit } from "@/db/queries/unit-writes";
 import { getUnitDetail } from "@/db/queries/units";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { notFound } from "@/lib/http/problem";
 import { lineAmountCents } from "@/lib/money";
 import { unitPatchInput } from "@/lib/validation/unit";

@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { FleetOccurrenceLog } from "@/components/occurrences/fleet-occurrence-log";
 import { PageHeader } from "@/components/ui/page-header";
 import { listOccurrences } from "@/db/queries/occurrences";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { HttpError } from "@/lib/http/problem";
 

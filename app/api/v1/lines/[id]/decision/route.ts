@@ -3,9 +3,9 @@ import { getDb } from "@/db/client";
 import { decide, workOrderOfLine } from "@/db/queries/decisions";
 import { estimateLines } from "@/db/schema";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { lineAmountCents } from "@/lib/money";
-import { afterDecision, decisionNotice } from "@/lib/notifications/decisions";
+import { afterDecision, decisionNotice } from "@/lib/server/notifications/decisions";
 import { decisionBody } from "@/lib/validation/estimate-line";
 
 export const dynamic = "force-dynamic";

@@ -1,9 +1,9 @@
 import { z } from "zod";
 import { addOccurrence, getOccurrence, listOccurrences } from "@/db/queries/occurrences";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { pageQuery } from "@/lib/http/pagination";
-import { queueOccurrenceNotice } from "@/lib/mail/notify-occurrence";
+import { queueOccurrenceNotice } from "@/lib/server/notifications/occurrences";
 import { occurrenceInput } from "@/lib/validation/occurrence";
 
 export const dynamic = "force-dynamic";

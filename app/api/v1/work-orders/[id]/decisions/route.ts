@@ -1,7 +1,7 @@
 import { decide } from "@/db/queries/decisions";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
-import { afterDecision, decisionNotice } from "@/lib/notifications/decisions";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
+import { afterDecision, decisionNotice } from "@/lib/server/notifications/decisions";
 import { batchDecisionBody } from "@/lib/validation/estimate-line";
 
 export const dynamic = "force-dynamic";

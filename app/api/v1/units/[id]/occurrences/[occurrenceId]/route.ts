@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { getOccurrence, updateOccurrence } from "@/db/queries/occurrences";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
+import { apiRoute } from "@/lib/server/http/api-route";
 import { notFound } from "@/lib/http/problem";
 import { occurrencePatch } from "@/lib/validation/occurrence";
 
