@@ -1,3 +1,4 @@
+import "server-only";
 import { env } from "@/lib/env";
 import { installSocketAddressStamp } from "@/lib/server/http/client-address";
 import { startMailWorker } from "@/lib/server/mail/worker";

@@ -1,4 +1,5 @@
 "use server";
+import "server-only";
 
 import { acceptInvitation } from "@/db/queries/invitations";
 import { completePasswordReset } from "@/db/queries/passwords";

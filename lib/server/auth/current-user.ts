@@ -1,3 +1,4 @@
+import "server-only";
 import { cookies } from "next/headers";
 import { unauthorized } from "next/navigation";
 import { cache } from "react";

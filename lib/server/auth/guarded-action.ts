@@ -1,3 +1,4 @@
+import "server-only";
 import { unstable_rethrow } from "next/navigation";
 import { z } from "zod";
 import type { Role } from "@/lib/domain";

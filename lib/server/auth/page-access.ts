@@ -1,3 +1,4 @@
+import "server-only";
 import { forbidden } from "next/navigation";
 import type { Role } from "@/lib/domain";
 import { requireUser } from "./current-user";

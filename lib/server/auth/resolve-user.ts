@@ -1,3 +1,4 @@
+import "server-only";
 import { decode } from "next-auth/jwt";
 import { findActiveUser, findUserByTokenHash, touchApiToken } from "@/db/queries/users";
 import { env } from "@/lib/env";

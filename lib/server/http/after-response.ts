@@ -1,3 +1,4 @@
+import "server-only";
 import { after } from "next/server";
 
 /**

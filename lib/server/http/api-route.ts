@@ -1,3 +1,4 @@
+import "server-only";
 import { z } from "zod";
 import { userFromRequest } from "@/lib/server/auth/resolve-user";
 import type { SessionUser } from "@/lib/auth/session-user";

@@ -1,3 +1,4 @@
+import "server-only";
 /**
  * Who is on the other end of the connection. Next.js gives route handlers no
  * socket, and it keeps a client's own X-Forwarded-For as sent (it adds the

@@ -1,3 +1,4 @@
+import "server-only";
 import { HttpError } from "@/lib/http/problem";
 
 export const DEFAULT_MAX_BODY_BYTES = 64 * 1024;

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq, gt } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { mailOutbox, type MailAttachmentRef } from "@/db/schema";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, asc, eq, inArray, lt, lte, min } from "drizzle-orm";
 import { getDb, writeTx } from "@/db/client";
 import { getInvoiceDetail } from "@/db/queries/invoices";

@@ -1,3 +1,4 @@
+import "server-only";
 import type { Tx } from "@/db/client";
 import { describeDecisions } from "@/db/queries/decisions";
 import type { TimeBoxNoticeDue } from "@/db/queries/time-box-stops";

@@ -1,3 +1,4 @@
+import "server-only";
 import { and, eq } from "drizzle-orm";
 import type { Reader, Tx } from "@/db/client";
 import { accountRecipients, shopRecipients, userEmail } from "@/db/queries/recipients";

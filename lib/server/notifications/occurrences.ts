@@ -1,3 +1,4 @@
+import "server-only";
 import type { Tx } from "@/db/client";
 import { photosOfOccurrences } from "@/db/queries/occurrence-photos";
 import { occurrenceMailFacts, occurrenceRecipients } from "@/db/queries/occurrence-recipients";

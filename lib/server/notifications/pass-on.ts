@@ -1,3 +1,4 @@
+import "server-only";
 import type { Tx } from "@/db/client";
 import { workOrderForMail } from "@/db/queries/work-order-detail";
 import { workOrderLabel } from "@/lib/domain";

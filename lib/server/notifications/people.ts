@@ -1,3 +1,4 @@
+import "server-only";
 import { createInvitation, resendInvitation } from "@/db/queries/invitations";
 import { requestPasswordReset } from "@/db/queries/passwords";
 import type { SessionUser } from "@/lib/auth/session-user";

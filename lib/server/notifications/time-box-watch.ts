@@ -1,3 +1,4 @@
+import "server-only";
 import { getDb, writeTx } from "@/db/client";
 import { nextTimeBoxInstant, settleTimeBoxes, type TimeBoxNoticeDue } from "@/db/queries/time-box-stops";
 import { nowIso } from "@/lib/ids";

@@ -1,3 +1,4 @@
+import "server-only";
 import { inArray } from "drizzle-orm";
 import type { Reader, Tx } from "@/db/client";
 import { accountRecipients } from "@/db/queries/recipients";

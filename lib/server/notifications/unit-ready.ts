@@ -1,3 +1,4 @@
+import "server-only";
 import { eq } from "drizzle-orm";
 import type { Tx } from "@/db/client";
 import { accountRecipients } from "@/db/queries/recipients";

@@ -1,3 +1,4 @@
+import "server-only";
 import type { Tx } from "@/db/client";
 import { queueCheckedIn, queueDefectProgress, queueDefectReported } from "@/lib/server/notifications/intake";
 

@@ -1,3 +1,4 @@
+import "server-only";
 import PDFDocument from "pdfkit";
 import { LINE_KIND_LABELS, type LineKind } from "@/lib/domain";
 import { formatDate } from "@/lib/format";

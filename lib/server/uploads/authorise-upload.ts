@@ -1,3 +1,4 @@
+import "server-only";
 import { UploadThingError } from "uploadthing/server";
 import { findScopedUnit } from "@/db/queries/occurrences";
 import { workOrderForUpload } from "@/db/queries/photos";

@@ -1,3 +1,4 @@
+import "server-only";
 import { findPhotoFile } from "@/db/queries/photos";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { HttpError, notFound } from "@/lib/http/problem";

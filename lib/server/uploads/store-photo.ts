@@ -1,3 +1,4 @@
+import "server-only";
 import { UTFile } from "uploadthing/server";
 import { insertPhoto } from "@/db/queries/photos";
 import { readUpTo } from "@/lib/server/http/read-body";

@@ -1,3 +1,4 @@
+import "server-only";
 import { takeUnattachedPhotos } from "@/db/queries/photo-sweep";
 import { utApi } from "./ut-api";
 

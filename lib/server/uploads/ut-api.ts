@@ -1,3 +1,4 @@
+import "server-only";
 import { UTApi } from "uploadthing/server";
 import { uploadThingConfig } from "@/lib/uploads/config";
 
