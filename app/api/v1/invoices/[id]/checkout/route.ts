@@ -1,4 +1,4 @@
-import { startCheckout } from "@/db/queries/checkout";
+import { startCheckout } from "@/lib/server/payments/checkout";
 import { CAN } from "@/lib/auth/policy";
 import { apiRoute, idParams } from "@/lib/server/http/api-route";
 
