@@ -2,11 +2,10 @@ import { and, eq } from "drizzle-orm";
 import { getDb, writeTxThen, type InSameTx, type Tx } from "@/db/client";
 import { decisions, estimateLines, statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { DECISION_LABELS, workOrderLabel } from "@/lib/domain";
-import { boxRootId, decideLines, type BatchOk, type DecisionRequest, type LineChange } from "@/lib/estimate";
+import { workOrderLabel } from "@/lib/domain";
+import { boxRootId, decideLines, describeDecisions, type BatchOk, type DecisionRequest, type LineChange } from "@/lib/estimate";
 import { conflict, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
-import { formatCents } from "@/lib/money";
 import { recordAudit } from "./audit";
 import { budgetUsedCents, currentFiscalYear, loadEstimateContext, toAccountSettings, toEstimateLine, toShopSettings } from "./estimate-context";
 import { scopedTo } from "./scope";
@@ -54,18 +53,6 @@ export async function writeLineChanges(tx: Tx, workOrderId: string, accountId: s
       at,
     });
   }
-}
-
-export function describeDecisions(changes: LineChange[]): string {
-  const parts = (["approve", "decline", "hold"] as const)
-    .map((d) => {
-      const picked = changes.filter((c) => c.record.decision === d);
-      if (!picked.length) return null;
-      const total = picked.reduce((s, c) => s + c.record.amountCents, 0);
-      return `${DECISION_LABELS[d].toLowerCase()} ${picked.length} line${picked.length === 1 ? "" : "s"} (${formatCents(total)})`;
-    })
-    .filter(Boolean);
-  return parts.join(", ");
 }
 
 /**

@@ -1,9 +1,8 @@
 import "server-only";
 import type { Tx } from "@/db/client";
-import { describeDecisions } from "@/db/queries/decisions";
 import type { TimeBoxNoticeDue } from "@/db/queries/time-box-stops";
 import type { SessionUser } from "@/lib/auth/session-user";
-import type { BatchOk } from "@/lib/estimate";
+import { describeDecisions, type BatchOk } from "@/lib/estimate";
 import { queueDecisionMade } from "./estimate";
 import { queueTimeBoxNotices } from "./time-box";
 import { scheduleTimeBoxWatch } from "./time-box-watch";
