@@ -3,12 +3,9 @@ import { getDb, type Reader } from "@/db/client";
 import { accounts, concerns, decisions, estimateLines, findingReadings, findings, photos, statusEvents, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { SEVERITIES } from "@/lib/domain";
+import { photoUrls } from "@/lib/uploads/photo-urls";
 import { scopedTo } from "./scope";
 import { clockedTechNameSql } from "./time-clock";
-
-export function photoUrls(photoId: string) {
-  return { url: `/api/v1/photos/${photoId}`, thumbUrl: `/api/v1/photos/${photoId}/thumb` };
-}
 
 /** The work order's header row, scoped: null for an id that does not exist or belongs to another account. */
 export async function findWorkOrder(user: SessionUser, id: string, db: Reader = getDb()) {

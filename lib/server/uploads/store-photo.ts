@@ -2,7 +2,7 @@ import "server-only";
 import { UTFile } from "uploadthing/server";
 import { insertPhoto } from "@/db/queries/photos";
 import { readUpTo } from "@/lib/server/http/read-body";
-import { photoUrls } from "@/db/queries/work-order-detail";
+import { photoUrls } from "@/lib/uploads/photo-urls";
 import { CleanPhoto, UnreadablePhotoError, cleanPhoto } from "@/lib/uploads/clean-photo";
 import { jpegHasGps } from "@/lib/uploads/exif-gps";
 import { ACCEPTED_WORDS, PHOTO_MAX_BYTES, sniffPhotoKind } from "@/lib/uploads/photo-rules";
