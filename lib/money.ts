@@ -9,10 +9,6 @@ export type Cents = number;
 
 const MAX_SAFE = BigInt(Number.MAX_SAFE_INTEGER);
 
-export function isCents(value: unknown): value is Cents {
-  return typeof value === "number" && Number.isSafeInteger(value);
-}
-
 export function assertCents(value: number, what = "amount"): Cents {
   if (!Number.isSafeInteger(value)) throw new RangeError(`${what} must be a whole number of cents, got ${value}`);
   return value;

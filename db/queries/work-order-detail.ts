@@ -1,6 +1,6 @@
 import { and, asc, desc, eq, inArray } from "drizzle-orm";
 import { getDb, type Reader } from "@/db/client";
-import { accounts, concerns, decisions, estimateLines, findingReadings, findings, photos, statusEvents, units, users, workOrders } from "@/db/schema";
+import { accounts, concerns, decisions, findingReadings, findings, photos, statusEvents, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { SEVERITIES } from "@/lib/domain";
 import { photoUrls } from "@/lib/uploads/photo-urls";
@@ -121,10 +121,6 @@ export async function loadFindings(workOrderId: string) {
 }
 
 export type FindingView = Awaited<ReturnType<typeof loadFindings>>[number];
-
-export async function loadLines(workOrderId: string) {
-  return getDb().select().from(estimateLines).where(eq(estimateLines.workOrderId, workOrderId)).orderBy(asc(estimateLines.position), asc(estimateLines.createdAt));
-}
 
 /** The latest decision on each line, with who made it. */
 export async function loadLatestDecisions(workOrderId: string) {

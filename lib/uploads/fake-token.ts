@@ -30,22 +30,6 @@ export function makeFakeToken(opts: {
   return Buffer.from(JSON.stringify(parts), "utf8").toString("base64");
 }
 
-export function decodeToken(token: string): FakeTokenParts {
-  const parsed: unknown = JSON.parse(Buffer.from(token, "base64").toString("utf8"));
-  if (typeof parsed !== "object" || parsed === null) throw new Error("token is not a JSON object");
-  const rec = parsed as Record<string, unknown>;
-  const { apiKey, appId, regions, ingestHost } = rec;
-  if (typeof apiKey !== "string" || typeof appId !== "string" || !Array.isArray(regions)) {
-    throw new Error("token needs apiKey, appId and regions");
-  }
-  return {
-    apiKey,
-    appId,
-    regions: regions.filter((r): r is string => typeof r === "string"),
-    ingestHost: typeof ingestHost === "string" ? ingestHost : "ingest.uploadthing.com",
-  };
-}
-
 /**
  * Environment for an app whose UploadThing SDK should talk to the fake at baseUrl.
  * Names come from the SDK's config provider: options are read as UPLOADTHING_<CONSTANT_CASE>.

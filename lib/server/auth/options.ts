@@ -19,8 +19,6 @@ const DUMMY_HASH = "$2b$10$/S6uB6B4lHqs246NOEfNHOO79rqFlQ0sdXJA.VdhQzGdeFZglS1zC
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
 
-export const SIGN_IN_FAILED = "That e-mail and password do not match an account. Check both and try again.";
-
 export function authOptions(): NextAuthOptions {
   return {
     secret: env().NEXTAUTH_SECRET,

@@ -16,10 +16,6 @@ function realKey(): string | null {
   return env().STRIPE_SECRET_KEY || null;
 }
 
-export function usingLocalFake(): boolean {
-  return realKey() === null;
-}
-
 export function stripeClient(): Stripe {
   const e = env();
   const real = realKey();
