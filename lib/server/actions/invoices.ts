@@ -75,8 +75,9 @@ export const creditNoteAction = guardedAction({ roles: CAN.issueInvoices, input:
 
 export const voidInvoiceAction = guardedAction({ roles: CAN.issueInvoices, input: voidInvoiceInput }, async ({ user, input }) => {
   const result = await voidInvoice(user, input.invoiceId, input.reason);
-  // Close any payment page still open for it; a payment that slips through is held for review anyway.
-  void afterResponse(() => Promise.allSettled(result.openCheckoutSessionIds.map(expireCheckoutSession)));
+  // Close any payment page still open for it, after the redirect has gone out: the payment service
+  // may be slow, and a payment that slips through is held for review anyway.
+  afterResponse(() => Promise.allSettled(result.openCheckoutSessionIds.map(expireCheckoutSession)));
   refreshInvoice(input.invoiceId, result.workOrderId);
   // Next step is the corrected invoice, issued from the work order.
   redirect(`/work-orders/${result.workOrderId}#invoice`);
