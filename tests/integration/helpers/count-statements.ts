@@ -35,15 +35,17 @@ export async function countStatements<T>(fn: () => Promise<T>): Promise<{ result
     }) as Transaction["batch"];
     return tx;
   };
-  client.execute = ((stmt: InStatement, args?: unknown) => {
+  const execute = original.execute as (this: typeof client, ...args: unknown[]) => ReturnType<typeof client.execute>;
+  client.execute = ((stmt: InStatement, ...rest: unknown[]) => {
     seen(stmt);
-    return (original.execute as (s: InStatement, a?: unknown) => ReturnType<typeof client.execute>).call(client, stmt, args);
+    return execute.call(client, stmt, ...rest);
   }) as typeof client.execute;
   client.batch = ((stmts: InStatement[], mode?: Parameters<typeof client.batch>[1]) => {
     stmts.forEach(seen);
     return original.batch.call(client, stmts, mode);
   }) as typeof client.batch;
-  client.transaction = (async (mode?: Parameters<typeof client.transaction>[0]) => wrapTx(await original.transaction.call(client, mode))) as typeof client.transaction;
+  const transaction = original.transaction as (this: typeof client, ...args: unknown[]) => Promise<Transaction>;
+  client.transaction = (async (...args: unknown[]) => wrapTx(await transaction.call(client, ...args))) as typeof client.transaction;
   try {
     const result = await fn();
     return { result, log };
