@@ -126,7 +126,7 @@ describe("the repair budget's running total", () => {
         await expectTotalsEqualRecount(accountId);
       }
       // Release with the rest held: nothing approved moves.
-      await tolerate(moveStatus(writer, wo!.id, { status: "released", pendingLines: "hold", pendingNote: "" }));
+      await tolerate(moveStatus(writer, wo!.id, { status: "released", note: "", pendingLines: "hold", pendingNote: "" }));
       await expectTotalsEqualRecount(accountId);
     }
     const [now] = await db.select().from(accounts).where(eq(accounts.id, accountId));
