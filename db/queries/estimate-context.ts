@@ -88,9 +88,19 @@ export async function loadEstimateContext(tx: Reader, user: Pick<SessionUser, "r
 
 export type EstimateContext = Awaited<ReturnType<typeof loadEstimateContext>>;
 
+type FiscalYearBounds = { fy: FiscalYear; fromIso: string; toIso: string };
+// The fiscal year holding an instant is the one whose bounds hold it, so the last one found per start month and zone is reused while `now` is inside it (the time-zone arithmetic was a good part of a decision's own work).
+const lastFiscalYear = new Map<string, FiscalYearBounds>();
+
 /** The fiscal year containing `now` for an account, with its UTC bounds in the shop's time zone. */
 /** Fiscal years turn at midnight in the shop's time zone (APP_TIME_ZONE), the one zone every date uses. */
-export function currentFiscalYear(account: Pick<Account, "fiscalYearStartMonth">, now = new Date(), timeZone = env().APP_TIME_ZONE) {
+export function currentFiscalYear(account: Pick<Account, "fiscalYearStartMonth">, now = new Date(), timeZone = env().APP_TIME_ZONE): FiscalYearBounds {
+  const key = `${account.fiscalYearStartMonth}|${timeZone}`;
+  const at = now.toISOString();
+  const known = lastFiscalYear.get(key);
+  if (known && known.fromIso <= at && at < known.toIso) return known;
   const fy: FiscalYear = fiscalYearOf(calendarDate(now, timeZone), account.fiscalYearStartMonth);
-  return { fy, fromIso: startOfDayIso(fy.startDate, timeZone), toIso: startOfDayIso(addDays(fy.endDate, 1), timeZone) };
+  const bounds = { fy, fromIso: startOfDayIso(fy.startDate, timeZone), toIso: startOfDayIso(addDays(fy.endDate, 1), timeZone) };
+  lastFiscalYear.set(key, bounds);
+  return bounds;
 }
