@@ -3,6 +3,7 @@ import type { SessionUser } from "@/lib/auth/session-user";
 import { isStaff } from "@/lib/auth/policy";
 import { limitsView, priceEstimate } from "@/lib/estimate";
 import { decidedBy, lineOut } from "@/lib/records/estimate-line";
+import { workOrderOut } from "@/lib/records/work-order";
 import { budgetUsedCents } from "./budget-use";
 import { currentFiscalYear, loadEstimateContext, toAccountSettings, toEstimateLine, toShopSettings } from "./estimate-context";
 import { findWorkOrder, loadConcerns, loadFindings, loadLatestDecisions, loadTimeline } from "./work-order-detail";
@@ -33,15 +34,7 @@ export async function workOrderView(user: SessionUser, id: string) {
   const caller = user.role === "approver" ? { id: user.id, signingLimitCents: user.signingLimitCents ?? 0 } : null;
 
   return {
-    id: wo.id,
-    number: wo.number,
-    label: `W-${wo.number}`,
-    unitId: wo.unitId,
-    accountId: wo.accountId,
-    status: wo.status,
-    promisedAt: wo.promisedAt,
-    updatedAt: wo.updatedAt,
-    title: wo.title,
+    ...workOrderOut(wo),
     poNumber: wo.poNumber,
     unitNumber: wo.unitNumber,
     unitDescription: wo.unitDescription,

@@ -4,6 +4,7 @@ import { CAN } from "@/lib/auth/policy";
 import { apiRoute, idParams } from "@/lib/http/api-route";
 import { notFound } from "@/lib/http/problem";
 import { lineFieldsOut } from "@/lib/records/estimate-line";
+import { workOrderOut } from "@/lib/records/work-order";
 import { unitPatchInput } from "@/lib/validation/unit";
 
 export const dynamic = "force-dynamic";
@@ -18,7 +19,7 @@ export const GET = apiRoute({ roles: CAN.anyone, params: idParams }, async ({ us
     workOrderId: openWorkOrder?.id ?? null,
     meterReadings: readings,
     deferredLines: deferred.map((l) => ({ ...lineFieldsOut(l), workOrderId: l.workOrderId, updatedAt: l.updatedAt })),
-    workOrders: history,
+    workOrders: history.map((w) => ({ ...w, ...workOrderOut({ ...w, unitId: unit.id, accountId: unit.accountId }) })),
   };
 });
 
