@@ -33,6 +33,11 @@ export interface DecisionOut {
   lineVersion: number;
 }
 
+/** A decision just written (its record from lib/estimate), as the API shows it. */
+export function decisionOut(by: string, at: string, record: { decision: Decision; amountCents: number; note: string | null; lineVersion: number }): DecisionOut {
+  return { by, at, decision: record.decision, amountCents: record.amountCents, note: record.note ?? "", lineVersion: record.lineVersion };
+}
+
 /** Who decided, in words: a person's name, or the standing authorisation. */
 export function decidedBy(d: { byStanding: boolean; by: string | null }): string {
   return d.byStanding ? "Standing authorisation" : (d.by ?? "Unknown");

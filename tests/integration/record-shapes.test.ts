@@ -6,6 +6,7 @@ import { describe, expect, it } from "vitest";
 import { POST as decideOne } from "@/app/api/v1/lines/[id]/decision/route";
 import { GET as getUnit } from "@/app/api/v1/units/[id]/route";
 import { GET as getWorkOrder } from "@/app/api/v1/work-orders/[id]/route";
+import { POST as decideBatch } from "@/app/api/v1/work-orders/[id]/decisions/route";
 import { GET as listWorkOrders } from "@/app/api/v1/work-orders/route";
 import { call } from "./helpers/app";
 import { lineByDescription, workOrderByNumber } from "./helpers/work-orders";
@@ -29,6 +30,21 @@ describe("one shape per record", () => {
     // api-v1.md's fields are all there.
     expect(Object.keys(decided.body.line)).toEqual(expect.arrayContaining(["id", "kind", "description", "quantity", "unitPriceCents", "amountCents", "taxable", "coreChargeCents", "state", "version", "findingId", "decision"]));
     expect(decided.body.line.decision).toEqual({ by: "Gary Holm", at: expect.any(String), decision: "approve", amountCents: 18_640, note: "Go ahead.", lineVersion: seal.version });
+  });
+
+  it("answers a batch of decisions with each line in the same shape, beside the fields the batch route always gave", async () => {
+    const wo = await workOrderByNumber(1042);
+    const inspection = await lineByDescription(wo.id, "Annual inspection");
+    const res = await call<{ lines: (Record<string, unknown> & { line: Line })[] }>(decideBatch, {
+      path: `/api/v1/work-orders/${wo.id}/decisions`,
+      params: { id: wo.id },
+      as: SUPERVISOR,
+      body: { decisions: [{ lineId: inspection.id, decision: "decline", expectedVersion: inspection.version }] },
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.lines[0]).toMatchObject({ id: inspection.id, state: "declined", version: inspection.version + 1, decision: "decline" });
+    const view = await call<{ lines: Line[] }>(getWorkOrder, { path: `/api/v1/work-orders/${wo.id}`, params: { id: wo.id }, as: SUPERVISOR });
+    expect(res.body.lines[0]!.line).toEqual(view.body.lines.find((l) => l.id === inspection.id));
   });
 
   it("gives a unit's deferred lines and past visits the fields of the detail's lines and of the list", async () => {

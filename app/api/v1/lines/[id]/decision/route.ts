@@ -2,7 +2,7 @@ import { decide } from "@/db/queries/decisions";
 import { CAN } from "@/lib/auth/policy";
 import { apiRoute, idParams } from "@/lib/http/api-route";
 import { afterDecision, decisionNotice } from "@/lib/notifications/decisions";
-import { lineOut } from "@/lib/records/estimate-line";
+import { decisionOut, lineOut } from "@/lib/records/estimate-line";
 import { decisionBody } from "@/lib/validation/estimate-line";
 
 export const dynamic = "force-dynamic";
@@ -12,9 +12,5 @@ export const POST = apiRoute({ roles: CAN.decide, params: idParams, body: decisi
   const decided = await decide(user, { lineId: params.id }, [{ lineId: params.id, ...body }], decisionNotice(user));
   await afterDecision(decided.result);
   const row = decided.lines.find((l) => l.id === params.id)!;
-  const { record } = decided.result.changes[0]!;
-  return {
-    line: lineOut(row, { by: user.name, at: decided.at, decision: record.decision, amountCents: record.amountCents, note: record.note ?? "", lineVersion: record.lineVersion }),
-    totals: decided.result.totals,
-  };
+  return { line: lineOut(row, decisionOut(user.name, decided.at, decided.result.changes[0]!.record)), totals: decided.result.totals };
 });
