@@ -1,5 +1,5 @@
 import { relations, sql } from "drizzle-orm";
-import { index, integer, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
 import {
   DECISIONS,
   INSPECTION_BASES,
@@ -370,6 +370,26 @@ export const decisions = sqliteTable(
     index("decisions_account_at_idx").on(t.accountId, t.at),
     index("decisions_wo_idx").on(t.workOrderId),
   ],
+);
+
+/**
+ * What an account has approved in one fiscal year, kept as a running total in the
+ * transaction of every change that moves it (db/queries/budget-use.ts), so a decision
+ * does not walk the account's whole history. A row is keyed by the fiscal year's exact
+ * bounds (UTC instants, from the account's start month and the shop's time zone as they
+ * were when the row was made) and starts from a full recount, so a changed start month or
+ * zone makes new rows instead of reading wrong ones.
+ */
+export const accountBudgetUse = sqliteTable(
+  "account_budget_use",
+  {
+    accountId: text("account_id").notNull().references(() => accounts.id, { onDelete: "cascade" }),
+    fromAt: text("from_at").notNull(),
+    toAt: text("to_at").notNull(),
+    fiscalYear: text("fiscal_year").notNull(),
+    usedCents: integer("used_cents").notNull().default(0),
+  },
+  (t) => [primaryKey({ columns: [t.accountId, t.fromAt, t.toAt] })],
 );
 
 export const timeEntries = sqliteTable(
@@ -809,6 +829,7 @@ export type Photo = typeof photos.$inferSelect;
 export type FindingReading = typeof findingReadings.$inferSelect;
 export type EstimateLine = typeof estimateLines.$inferSelect;
 export type DecisionRow = typeof decisions.$inferSelect;
+export type AccountBudgetUse = typeof accountBudgetUse.$inferSelect;
 export type TimeEntry = typeof timeEntries.$inferSelect;
 export type Invoice = typeof invoices.$inferSelect;
 export type InvoiceLine = typeof invoiceLines.$inferSelect;

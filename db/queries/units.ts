@@ -163,16 +163,7 @@ export async function getUnitDetail(user: SessionUser, id: string) {
   ]);
 
   const deferred = await db
-    .select({
-      id: estimateLines.id,
-      workOrderId: estimateLines.workOrderId,
-      kind: estimateLines.kind,
-      description: estimateLines.description,
-      quantityMilli: estimateLines.quantityMilli,
-      unitPriceCents: estimateLines.unitPriceCents,
-      state: estimateLines.state,
-      updatedAt: estimateLines.updatedAt,
-    })
+    .select()
     .from(estimateLines)
     .where(
       and(

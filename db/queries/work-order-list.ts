@@ -2,11 +2,12 @@ import { and, desc, eq, gte, lt, ne, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { accounts, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
+import type { WorkOrderStatus } from "@/lib/domain";
 import { invalidInput } from "@/lib/http/problem";
 import { addDays, startOfDayIso } from "@/lib/dates";
 import { env } from "@/lib/env";
 import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
+import { workOrderOut } from "@/lib/records/work-order";
 import { scopedTo } from "./scope";
 import { clockedTechNameSql } from "./time-clock";
 
@@ -99,7 +100,7 @@ export async function listOpenWorkOrders(
 
   const { page, nextCursor } = paginate(rows, opts.limit, (r) => [r.number]);
   return {
-    workOrders: page.map((r) => ({ ...r, outOfService: Boolean(r.outOfService), label: workOrderLabel(r.number) })),
+    workOrders: page.map((r) => ({ ...r, ...workOrderOut(r), outOfService: Boolean(r.outOfService) })),
     nextCursor,
   };
 }

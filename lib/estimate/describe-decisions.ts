@@ -2,8 +2,8 @@ import { DECISION_LABELS } from "../domain";
 import { formatCents } from "../money";
 import type { LineChange } from "./types";
 
-/** One sentence for the audit note and the writer's e-mail: "approve 2 lines ($310.00), decline 1 line ($45.00)". */
-export function describeDecisions(changes: LineChange[]): string {
+/** "approve 2 lines ($410.00), decline 1 line ($95.00)": the timeline's and the writer's e-mail's words for a batch. */
+export function describeDecisions(changes: readonly LineChange[]): string {
   const parts = (["approve", "decline", "hold"] as const)
     .map((d) => {
       const picked = changes.filter((c) => c.record.decision === d);

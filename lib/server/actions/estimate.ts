@@ -61,7 +61,7 @@ export const moveLineAction = guardedAction(
 );
 
 export const sendEstimateAction = guardedAction({ roles: CAN.writeEstimates, input: z.object({ workOrderId: id }) }, async ({ user, input }) => {
-  const { sentCount } = await sendEstimate(user, input.workOrderId, (tx, sent) => queueEstimateReady(tx, input.workOrderId, sent.sentCount));
+  const { sentCount } = await sendEstimate(user, input.workOrderId, (tx, sent) => queueEstimateReady(tx, sent.wo, sent.sentCount));
   refresh(input.workOrderId);
   return { sentCount };
 });
@@ -69,8 +69,10 @@ export const sendEstimateAction = guardedAction({ roles: CAN.writeEstimates, inp
 export const startStandingAction = guardedAction(
   { roles: CAN.writeEstimates, input: z.object({ workOrderId: id, lineIds: z.union([id, z.array(id)]).transform((v) => (Array.isArray(v) ? v : [v])) }) },
   async ({ user, input }) => {
-    const count = await startUnderStanding(user, input.workOrderId, input.lineIds);
+    const count = await startUnderStanding(user, input.workOrderId, input.lineIds, (tx, applied) => queueTimeBoxNotices(tx, applied.timeBoxNotices));
     refresh(input.workOrderId);
+    // A diagnosis line started under the standing authorisation sizes its time box like an approval.
+    if (count > 0) await scheduleTimeBoxWatch();
     return { count };
   },
 );

@@ -1,17 +1,17 @@
 import "server-only";
 import type { Tx } from "@/db/client";
-import type { TimeBoxNoticeDue } from "@/db/queries/time-box-stops";
+import type { Decided } from "@/db/queries/decisions";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { describeDecisions, type BatchOk } from "@/lib/estimate";
+import type { BatchOk } from "@/lib/estimate";
 import { queueDecisionMade } from "./estimate";
 import { queueTimeBoxNotices } from "./time-box";
 import { scheduleTimeBoxWatch } from "./time-box-watch";
 
-/** Passed to decide(): in the decision's own transaction, queue the writer's e-mail about it (and any time-box notice it made due). */
+/** Passed to decide(): in the decision's own transaction, queue the writer's e-mail about it (and any time-box notice it made due), from what the decision loaded. */
 export function decisionNotice(user: SessionUser) {
-  return async (tx: Tx, { result, wo, timeBoxNotices }: { result: BatchOk; wo: { id: string }; timeBoxNotices: TimeBoxNoticeDue[] }): Promise<void> => {
+  return async (tx: Tx, { result, wo, unitNumber, summary, timeBoxNotices }: Decided): Promise<void> => {
     const stillPending = result.lines.filter((l) => l.state === "proposed").length;
-    await queueDecisionMade(tx, wo.id, { approverName: user.name, summary: describeDecisions(result.changes), stillPending });
+    await queueDecisionMade(tx, { ...wo, unitNumber }, { approverName: user.name, summary, stillPending });
     await queueTimeBoxNotices(tx, timeBoxNotices);
   };
 }
