@@ -1,9 +1,10 @@
-import { aliasedTable, and, asc, desc, eq, gt, inArray, isNotNull, isNull, ne, or, sql } from "drizzle-orm";
+import { aliasedTable, and, asc, desc, eq, gt, isNotNull, isNull, ne, or, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { accounts, estimateLines, meterReadings, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { invalidInput } from "@/lib/http/problem";
 import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
+import { isDeferredLine } from "./estimate-lines";
 import { scopedTo } from "./scope";
 
 const openWo = aliasedTable(workOrders, "open_wo");
@@ -174,14 +175,11 @@ export async function getUnitDetail(user: SessionUser, id: string) {
       updatedAt: estimateLines.updatedAt,
     })
     .from(estimateLines)
+    .innerJoin(workOrders, eq(workOrders.id, estimateLines.workOrderId))
     .where(
       and(
-        inArray(
-          estimateLines.workOrderId,
-          history.map((h) => h.id),
-        ),
-        inArray(estimateLines.state, ["held", "declined"]),
-        sql`${estimateLines.broughtBackAt} is null`,
+        eq(workOrders.unitId, id),
+        isDeferredLine,
       ),
     )
     .orderBy(desc(estimateLines.updatedAt));

@@ -1,4 +1,4 @@
-import { and, desc, eq, gte, lt, ne, sql } from "drizzle-orm";
+import { and, desc, eq, gte, lt, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { accounts, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -45,6 +45,10 @@ export interface WorkOrderFilters {
   openedTo?: string;
 }
 
+// A literal, not a bound parameter: only then can SQLite use the partial indexes on open work
+// (work_orders_open_*), so the list reads the open visits and never walks the released ones.
+const stillOpen = sql`${workOrders.status} <> 'released'`;
+
 /**
  * Work orders the caller may see, newest number first: by default the open
  * ones (the Floor, the fleet's "in the shop" list, GET /api/v1/work-orders);
@@ -86,7 +90,7 @@ export async function listOpenWorkOrders(
     .where(
       and(
         scopedTo(workOrders.accountId, user),
-        opts.status ? eq(workOrders.status, opts.status) : opts.all ? undefined : ne(workOrders.status, "released"),
+        opts.status ? eq(workOrders.status, opts.status) : opts.all ? undefined : stillOpen,
         opts.technicianId ? eq(workOrders.assignedTechId, opts.technicianId) : undefined,
         opts.accountId ? eq(workOrders.accountId, opts.accountId) : undefined,
         opts.openedFrom ? gte(workOrders.openedAt, startOfDayIso(opts.openedFrom, zone)) : undefined,
