@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { Money } from "@/components/ui/money";
 import { DecisionLine, LineStatePill } from "@/components/estimate/line-state";
-import type { LineView } from "@/db/queries/work-order-view";
+import type { ApprovalLineData } from "./approval-data";
 import { LINE_KIND_LABELS, type Decision } from "@/lib/domain";
 import { formatQuantity } from "@/lib/format";
 
@@ -22,7 +22,7 @@ export function ApprovalLine({
   onDecide,
   children,
 }: {
-  line: LineView;
+  line: ApprovalLineData;
   canDecide: boolean;
   busy: boolean;
   refusal: string | null;
