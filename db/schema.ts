@@ -211,6 +211,7 @@ export const workOrders = sqliteTable(
     // condition as this literal so the planner can use the partial index), or every visit.
     index("work_orders_open_number_idx").on(t.number).where(sql`status <> 'released'`),
     index("work_orders_open_account_number_idx").on(t.accountId, t.number).where(sql`status <> 'released'`),
+    index("work_orders_open_tech_number_idx").on(t.assignedTechId, t.number).where(sql`status <> 'released'`),
     index("work_orders_account_number_idx").on(t.accountId, t.number),
     index("work_orders_status_number_idx").on(t.status, t.number),
     // A unit's visits, newest first.

@@ -32,6 +32,7 @@ CREATE INDEX `photos_wo_idx` ON `photos` (`work_order_id`,`created_at`);--> stat
 DROP INDEX `work_orders_unit_idx`;--> statement-breakpoint
 CREATE INDEX `work_orders_open_number_idx` ON `work_orders` (`number`) WHERE status <> 'released';--> statement-breakpoint
 CREATE INDEX `work_orders_open_account_number_idx` ON `work_orders` (`account_id`,`number`) WHERE status <> 'released';--> statement-breakpoint
+CREATE INDEX `work_orders_open_tech_number_idx` ON `work_orders` (`assigned_tech_id`,`number`) WHERE status <> 'released';--> statement-breakpoint
 CREATE INDEX `work_orders_account_number_idx` ON `work_orders` (`account_id`,`number`);--> statement-breakpoint
 CREATE INDEX `work_orders_status_number_idx` ON `work_orders` (`status`,`number`);--> statement-breakpoint
 CREATE INDEX `work_orders_unit_idx` ON `work_orders` (`unit_id`,`opened_at`);--> statement-breakpoint

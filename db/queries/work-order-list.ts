@@ -1,12 +1,12 @@
-import { and, desc, eq, gte, lt, sql } from "drizzle-orm";
+import { and, count, desc, eq, gte, lt, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { accounts, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
+import { OPEN_STATUSES, workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
 import { invalidInput } from "@/lib/http/problem";
 import { addDays, startOfDayIso } from "@/lib/dates";
 import { env } from "@/lib/env";
-import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
+import { decodeCursor, PAGE_SIZE, paginate, type PageQuery } from "@/lib/http/pagination";
 import { scopedTo } from "./scope";
 import { clockedTechNameSql } from "./time-clock";
 
@@ -107,3 +107,35 @@ export async function listOpenWorkOrders(
     nextCursor,
   };
 }
+
+export interface FloorLane {
+  status: WorkOrderStatus;
+  /** The newest PAGE_SIZE of the lane; `total` says how many more the full list holds. */
+  workOrders: WorkOrderListItem[];
+  total: number;
+}
+
+/**
+ * The Floor: each open status's newest page of work orders and how many it holds, and for a
+ * technician their own open work. Only open visits are read, through the partial indexes,
+ * so the board costs the same after years of released ones.
+ */
+export async function floorLanes(user: SessionUser, opts: { mineFor?: string } = {}) {
+  const [lanes, counts, mine] = await Promise.all([
+    Promise.all(OPEN_STATUSES.map((status) => listOpenWorkOrders(user, { status, limit: PAGE_SIZE }))),
+    getDb()
+      .select({ status: workOrders.status, n: count() })
+      .from(workOrders)
+      .where(and(scopedTo(workOrders.accountId, user), stillOpen))
+      .groupBy(workOrders.status),
+    opts.mineFor ? listOpenWorkOrders(user, { technicianId: opts.mineFor, limit: PAGE_SIZE }) : null,
+  ]);
+  const totalOf = new Map(counts.map((c) => [c.status, c.n]));
+  return {
+    lanes: OPEN_STATUSES.map((status, i): FloorLane => ({ status, workOrders: lanes[i]!.workOrders, total: totalOf.get(status) ?? 0 })),
+    total: counts.reduce((sum, c) => sum + c.n, 0),
+    mine: mine ? { workOrders: mine.workOrders, more: mine.nextCursor !== null } : null,
+  };
+}
+
+export type FloorData = Awaited<ReturnType<typeof floorLanes>>;

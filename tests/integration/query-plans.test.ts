@@ -20,7 +20,7 @@ import { loadShopWorkOrderPage } from "@/db/queries/shop-work-order-page";
 import { receivables } from "@/db/queries/statement";
 import { timeSummary } from "@/db/queries/time-clock";
 import { getUnitDetail, listUnits } from "@/db/queries/units";
-import { listOpenWorkOrders } from "@/db/queries/work-order-list";
+import { floorLanes, listOpenWorkOrders } from "@/db/queries/work-order-list";
 import { workOrderView } from "@/db/queries/work-order-view";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { sessionUser } from "./helpers/app";
@@ -36,6 +36,7 @@ const SMALL = new Set(["shop_settings", "labor_rates", "counters", "unit_search"
 
 const LIMIT = 50;
 let writer: SessionUser;
+let tech: SessionUser;
 let owner: SessionUser;
 let clerk: SessionUser;
 let supervisor: SessionUser;
@@ -45,8 +46,9 @@ let invoiceId: string;
 let accountId: string;
 
 beforeAll(async () => {
-  [writer, owner, clerk, supervisor] = await Promise.all([
+  [writer, tech, owner, clerk, supervisor] = await Promise.all([
     sessionUser("writer@quarry-road.example"),
+    sessionUser("tech@quarry-road.example"),
     sessionUser("owner@quarry-road.example"),
     sessionUser("clerk@brennan-twp.example"),
     sessionUser("supervisor@brennan-twp.example"),
@@ -74,6 +76,8 @@ const readingsOfFindings: Allowance = { sortOver: "SEARCH finding_readings", why
 const cases: [string, () => Promise<unknown>, Allowance[]?][] = [
   // Lists (API and pages)
   ["open work orders, shop (the Floor, GET /api/v1/work-orders)", () => listOpenWorkOrders(writer, { limit: LIMIT })],
+  ["the Floor's lanes and counts", () => floorLanes(writer)],
+  ["the Floor as a technician (their own open work)", () => floorLanes(tech, { mineFor: tech.id })],
   ["open work orders, fleet", () => listOpenWorkOrders(supervisor, { limit: LIMIT })],
   ["open work orders of one status", () => listOpenWorkOrders(writer, { limit: LIMIT, status: "waiting_approval" })],
   ["open work orders of one account", () => listOpenWorkOrders(writer, { limit: LIMIT, accountId })],
