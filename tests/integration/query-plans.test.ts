@@ -87,6 +87,8 @@ const cases: [string, () => Promise<unknown>, Allowance[]?][] = [
   ["invoices, shop", () => listInvoices(owner, { limit: LIMIT })],
   ["invoices of one account, shop", () => listInvoices(owner, { limit: LIMIT, accountId })],
   ["invoices of one status, fleet", () => listInvoices(clerk, { limit: LIMIT, status: "open" })],
+  ["invoices part paid, shop (the invoice list's filter)", () => listInvoices(owner, { limit: LIMIT, paymentState: "partly_paid" })],
+  ["paid and void invoices, fleet", () => listInvoices(clerk, { limit: LIMIT, settled: true })],
   ["invoices of a work order", () => invoicesOfWorkOrder(owner, w1042)],
   ["open invoices of an account (statement)", () => openInvoices(accountId)],
   ["payments of an account in a period", () => paymentsOfAccount(accountId, "2026-01-01T00:00:00.000Z", "2027-01-01T00:00:00.000Z")],
@@ -111,8 +113,8 @@ const cases: [string, () => Promise<unknown>, Allowance[]?][] = [
   ["a work order's invoice section", () => invoiceSection(owner, w1042)],
   ["an invoice", () => getInvoiceDetail(clerk, invoiceId)],
   [
-    "a unit's page (visits, readings)",
-    () => getUnitDetail(supervisor, unitId),
+    "a unit's page (a page of visits, readings)",
+    () => getUnitDetail(supervisor, unitId, { visits: { limit: LIMIT } }),
     [deferredOfUnit],
   ],
   // Desk lists
