@@ -1,17 +1,23 @@
+"use client";
+
 import Link from "next/link";
 import { LiveRefresh } from "@/components/data/live-refresh";
+import { useNow } from "@/components/data/use-now";
 import { EmptyState } from "@/components/ui/empty-state";
 import { StatusPill } from "@/components/ui/status-pill";
-import type { FloorData, WorkOrderListItem } from "@/db/queries/work-order-list";
+import type { FloorCard, FloorData } from "@/db/queries/work-order-list";
 import { STATUS_LABELS } from "@/lib/domain";
 import { WorkOrderCard } from "./work-order-card";
 
 /**
- * Every unit in the building, grouped by where its visit stands; refreshes itself. Each lane
- * shows its newest page (the API's page size) and links to the full, paged list of that status.
+ * Every unit in the building, grouped by where its visit stands. Each lane shows its newest
+ * page (the API's page size) and links to the full, paged list of that status. The data comes
+ * once, as this component's props (only what a card shows); the server sends it again on each
+ * refresh (LiveRefresh), so there is no second copy in a client cache.
  */
-export function FloorBoard({ floor, userId, isTech, now }: { floor: FloorData; userId: string; isTech: boolean; now: number }) {
-  const href = (w: WorkOrderListItem) => `/work-orders/${w.id}`;
+export function FloorBoard({ floor, userId, isTech, renderedAt }: { floor: FloorData; userId: string; isTech: boolean; renderedAt: number }) {
+  const now = useNow(30_000, renderedAt);
+  const href = (w: FloorCard) => `/work-orders/${w.id}`;
   const mine = floor.mine?.workOrders ?? [];
 
   return (

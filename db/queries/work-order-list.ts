@@ -108,10 +108,33 @@ export async function listOpenWorkOrders(
   };
 }
 
+/** What a card on the Floor shows of a work order. */
+export type FloorCard = Pick<
+  WorkOrderListItem,
+  "id" | "label" | "status" | "unitNumber" | "unitDescription" | "accountName" | "title" | "promisedAt" | "technicianName" | "clockedTechName" | "lastNote" | "outOfService"
+>;
+
+function floorCard(w: WorkOrderListItem): FloorCard {
+  return {
+    id: w.id,
+    label: w.label,
+    status: w.status,
+    unitNumber: w.unitNumber,
+    unitDescription: w.unitDescription,
+    accountName: w.accountName,
+    title: w.title,
+    promisedAt: w.promisedAt,
+    technicianName: w.technicianName,
+    clockedTechName: w.clockedTechName,
+    lastNote: w.lastNote,
+    outOfService: w.outOfService,
+  };
+}
+
 export interface FloorLane {
   status: WorkOrderStatus;
   /** The newest PAGE_SIZE of the lane; `total` says how many more the full list holds. */
-  workOrders: WorkOrderListItem[];
+  workOrders: FloorCard[];
   total: number;
 }
 
@@ -132,9 +155,9 @@ export async function floorLanes(user: SessionUser, opts: { mineFor?: string } =
   ]);
   const totalOf = new Map(counts.map((c) => [c.status, c.n]));
   return {
-    lanes: OPEN_STATUSES.map((status, i): FloorLane => ({ status, workOrders: lanes[i]!.workOrders, total: totalOf.get(status) ?? 0 })),
+    lanes: OPEN_STATUSES.map((status, i): FloorLane => ({ status, workOrders: lanes[i]!.workOrders.map(floorCard), total: totalOf.get(status) ?? 0 })),
     total: counts.reduce((sum, c) => sum + c.n, 0),
-    mine: mine ? { workOrders: mine.workOrders, more: mine.nextCursor !== null } : null,
+    mine: mine ? { workOrders: mine.workOrders.map(floorCard), more: mine.nextCursor !== null } : null,
   };
 }
 

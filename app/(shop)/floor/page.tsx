@@ -22,7 +22,7 @@ export default async function FloorPage() {
   ]);
   const canCheckIn = hasRole(user, CAN.manageAccounts);
   // The board is drawn at request time (and again on each refresh): "late" is against this instant.
-  const now = new Date().getTime();
+  const renderedAt = new Date().getTime();
   return (
     <>
       <PageHeader title="Floor" kicker={`${floor.total} unit${floor.total === 1 ? "" : "s"} in the shop`}>
@@ -53,7 +53,7 @@ export default async function FloorPage() {
           <ReportList rows={reports.serviceRequests} shop={canCheckIn} empty="" />
         </section>
       ) : null}
-      <FloorBoard floor={floor} userId={user.id} isTech={user.role === "tech"} now={now} />
+      <FloorBoard floor={floor} userId={user.id} isTech={user.role === "tech"} renderedAt={renderedAt} />
     </>
   );
 }
