@@ -4,6 +4,7 @@
  * percent ("milli-percent": 8.875 % = 8875), so every product below is exact
  * integer arithmetic and only the final division rounds.
  */
+import { memoised } from "./intl-cache";
 
 export type Cents = number;
 
@@ -94,16 +95,13 @@ export function milliPctToPercent(milliPct: number): number {
   return milliPct / 1000;
 }
 
-const formatters = new Map<string, Intl.NumberFormat>();
+const currencyFormat = memoised((key: string) => {
+  const [locale, currency] = key.split("|") as [string, string];
+  return new Intl.NumberFormat(locale, { style: "currency", currency, minimumFractionDigits: 2 });
+});
 
 function formatter(currency: string, locale: string): Intl.NumberFormat {
-  const key = `${locale}|${currency}`;
-  let f = formatters.get(key);
-  if (!f) {
-    f = new Intl.NumberFormat(locale, { style: "currency", currency, minimumFractionDigits: 2 });
-    formatters.set(key, f);
-  }
-  return f;
+  return currencyFormat(`${locale}|${currency}`);
 }
 
 /** 124050 → "$1,240.50". Formatting happens only at the edge. */

@@ -1,4 +1,4 @@
-import { and, eq, inArray, isNull, ne, sql } from "drizzle-orm";
+import { and, eq, ne, sql } from "drizzle-orm";
 import { writeTx, writeTxThen, type InSameTx, type Reader, type Tx } from "@/db/client";
 import { concerns, estimateLines, statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -198,6 +198,13 @@ export async function moveLine(user: SessionUser, lineId: string, direction: "up
   });
 }
 
+/**
+ * A held or declined line no later visit has brought back. A literal, the partial index's own
+ * condition (estimate_lines_deferred_idx): a bound parameter would keep the planner off it, and it
+ * would walk every held line the shop ever wrote.
+ */
+export const isDeferredLine = sql`${estimateLines.state} in ('held', 'declined') and ${estimateLines.broughtBackAt} is null`;
+
 /** Held and declined lines of the unit's earlier visits that no later visit has brought back. */
 export async function deferredLinesForUnit(tx: Reader, unitId: string, exceptWorkOrderId: string) {
   return tx
@@ -208,8 +215,7 @@ export async function deferredLinesForUnit(tx: Reader, unitId: string, exceptWor
       and(
         eq(workOrders.unitId, unitId),
         ne(workOrders.id, exceptWorkOrderId),
-        inArray(estimateLines.state, ["held", "declined"]),
-        isNull(estimateLines.broughtBackAt),
+        isDeferredLine,
       ),
     )
     .orderBy(sql`${estimateLines.updatedAt} desc`);

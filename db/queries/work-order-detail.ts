@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNotNull } from "drizzle-orm";
 import { getDb, type Reader } from "@/db/client";
 import { accounts, concerns, decisions, findingReadings, findings, photos, statusEvents, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -91,7 +91,8 @@ export async function loadFindings(workOrderId: string) {
         db
           .select({ id: photos.id, findingId: photos.findingId, name: photos.name, width: photos.width, height: photos.height })
           .from(photos)
-          .where(inArray(photos.findingId, ids))
+          // By the work order (a finding's photos are attached on its visit): one ordered index range.
+          .where(and(eq(photos.workOrderId, workOrderId), isNotNull(photos.findingId)))
           .orderBy(asc(photos.createdAt)),
         db.select().from(findingReadings).where(inArray(findingReadings.findingId, ids)).orderBy(asc(findingReadings.position)),
       ])

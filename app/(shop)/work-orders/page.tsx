@@ -5,7 +5,7 @@ import { Button, ButtonLink } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { StatusPill } from "@/components/ui/status-pill";
-import { Pager } from "@/components/units/unit-list";
+import { Pager } from "@/components/ui/pager";
 import { accountChoices } from "@/db/queries/accounts";
 import { assignableStaff } from "@/db/queries/people";
 import { listOpenWorkOrders } from "@/db/queries/work-order-list";
@@ -32,6 +32,7 @@ export default async function WorkOrdersPage({ searchParams }: { searchParams: P
     openedFrom: date(p.openedFrom),
     openedTo: date(p.openedTo),
     cursor: decodeCursor(p.cursor, 1) ? p.cursor : undefined,
+    page: p.page,
   };
   const [accounts, staff, result] = await Promise.all([
     accountChoices(),
