@@ -11,12 +11,6 @@ export async function asUser(email: string): Promise<SessionUser> {
   return { id: u.id, name: u.name, email: u.email, role: u.role, accountId: u.accountId, signingLimitCents: u.signingLimitCents, via: "session" };
 }
 
-export async function workOrderByNumber(number: number) {
-  const [wo] = await getDb().select().from(workOrders).where(eq(workOrders.number, number)).limit(1);
-  if (!wo) throw new Error(`no work order W-${number}`);
-  return wo;
-}
-
 export interface LineFixture {
   kind: LineKind;
   description: string;
