@@ -15,7 +15,7 @@ import { POST as postFinding } from "@/app/api/v1/work-orders/[id]/findings/rout
 import { photoRouter, type PhotoRouter } from "@/app/api/uploadthing/core";
 import { GET as utGet, POST as utPost } from "@/app/api/uploadthing/route";
 import { getDb } from "@/db/client";
-import { photos, workOrders } from "@/db/schema";
+import { photos } from "@/db/schema";
 import { jpegHasGps } from "@/lib/uploads/exif-gps";
 import type { PhotoUploadResult } from "@/lib/uploads/store-photo";
 import { call, sessionCookie } from "./helpers/app";

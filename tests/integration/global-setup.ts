@@ -5,14 +5,12 @@ import type { TestProject } from "vitest/node";
 import { migrateDatabase } from "@/db/migrate";
 import { seedDatabase } from "@/db/seed";
 import { startFakeSmtp } from "@/mocks/smtp/server";
-import type { CatcherAddress } from "@/tests/support/mailbox";
+import "@/tests/support/mailbox";
 
 declare module "vitest" {
   export interface ProvidedContext {
     /** A migrated database with the demo data, made once per run; each file copies it (setup.ts). */
     templateDb: string;
-    /** The run's one mail catcher; each file reads its own mailbox (tests/support/mailbox.ts). */
-    mailCatcher: CatcherAddress;
   }
 }
 

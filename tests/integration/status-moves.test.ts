@@ -4,7 +4,7 @@ import { GET as visit } from "@/app/api/v1/units/[id]/visit/route";
 import { POST as move } from "@/app/api/v1/work-orders/[id]/status/route";
 import { GET as listOrders } from "@/app/api/v1/work-orders/route";
 import { getDb } from "@/db/client";
-import { auditLog, statusEvents, workOrders } from "@/db/schema";
+import { auditLog, statusEvents } from "@/db/schema";
 import { call } from "./helpers/app";
 import { catchMail } from "./helpers/mail";
 import { workOrderByNumber } from "./helpers/work-orders";

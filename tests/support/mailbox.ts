@@ -21,6 +21,16 @@ export interface CatcherAddress {
   httpUrl: string;
 }
 
+declare module "vitest" {
+  export interface ProvidedContext {
+    /** The run's one mail catcher (integration and browser global set-ups start it). */
+    mailCatcher: CatcherAddress;
+  }
+}
+
+/** The browser tests' shared app server sends its mail through this mailbox. */
+export const APP_MAILBOX = "app";
+
 const POLL_MS = 50;
 
 export function mailbox(catcher: CatcherAddress, name = `box-${process.pid}-${Math.random().toString(36).slice(2, 10)}`): Mailbox {

@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { estimateLines, invoices, users, workOrders } from "@/db/schema";
+import { estimateLines, invoices, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import type { LineKind, LineState } from "@/lib/domain";
 import { userByEmail } from "./app";
