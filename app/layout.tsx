@@ -6,6 +6,11 @@ import { connection } from "next/server";
 export const metadata: Metadata = {
   title: { default: "Cotter", template: "%s · Cotter" },
   description: "Work orders, findings, estimates and approvals between a truck shop and its fleets.",
+  // Added to a phone's home screen, Cotter opens like an app (public/manifest.webmanifest).
+  manifest: "/manifest.webmanifest",
+  icons: { apple: "/icons/apple-touch-icon.png" },
+  appleWebApp: { capable: true, title: "Cotter", statusBarStyle: "default" },
+  robots: { index: false, follow: false },
 };
 
 export const viewport: Viewport = {
