@@ -19,7 +19,7 @@ describe("home screen and crawlers", () => {
   it("the sign-in page links the manifest and a home-screen icon", async () => {
     const html = await (await fetch(`${base()}/sign-in`)).text();
     expect(html).toMatch(/<link rel="manifest" href="\/manifest.webmanifest"/);
-    expect(html).toMatch(/<link rel="apple-touch-icon" href="\/icons\/apple-touch-icon.png"/);
+    expect(html).toMatch(/<link rel="apple-touch-icon" href="\/apple-icon.png/);
     // The browser-tab icon from app/icon.svg is still there beside them.
     expect(html).toMatch(/<link rel="icon" href="\/icon.svg/);
   });
@@ -31,7 +31,7 @@ describe("home screen and crawlers", () => {
     expect(manifest).toMatchObject({ name: "Cotter", short_name: "Cotter", start_url: "/", display: "standalone" });
     expect(manifest.icons.map((i) => i.sizes)).toEqual(expect.arrayContaining(["192x192", "512x512"]));
     expect(manifest.icons.some((i) => i.purpose === "maskable")).toBe(true);
-    for (const icon of [...manifest.icons, { src: "/icons/apple-touch-icon.png", sizes: "180x180" }]) {
+    for (const icon of [...manifest.icons, { src: "/apple-icon.png", sizes: "180x180" }]) {
       const image = await fetch(`${base()}${icon.src}`);
       expect(image.status, icon.src).toBe(200);
       expect(image.headers.get("content-type")).toBe("image/png");

@@ -26,7 +26,8 @@ describe("not found", () => {
     const { status, html } = await get(`/work-orders/${MISSING}`, "writer@quarry-road.example");
     expect(status).toBe(404);
     expect(html).toContain("Back to the Floor");
-    expect(html).toContain('aria-label="Main"');
+    // The shop's navigation is around it (in the HTML, or in the page data Next renders it from).
+    expect(html).toMatch(/aria-label(="|\\":\\")Main/);
   });
 
   it("in the fleet portal: 404 inside the portal's frame, back to the account's units", async () => {
