@@ -24,8 +24,10 @@ export default defineConfig({
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
           environment: "node",
+          // One template database and one mail catcher per run (global-setup.ts); each file
+          // gets its own copy of the database and its own mailbox (setup.ts), so files run in parallel.
+          globalSetup: ["tests/integration/global-setup.ts"],
           setupFiles: ["tests/integration/setup.ts"],
-          // Each file gets its own SQLite file; files run in parallel workers.
           testTimeout: 30_000,
           hookTimeout: 60_000,
         },
