@@ -1,5 +1,5 @@
 import { TurnedAway } from "@/components/shell/turned-away";
-import { currentUser } from "@/lib/auth/current-user";
+import { currentUser } from "@/lib/server/auth/current-user";
 import { isStaff } from "@/lib/auth/policy";
 
 export default async function Forbidden() {

@@ -6,6 +6,11 @@ import { connection } from "next/server";
 export const metadata: Metadata = {
   title: { default: "Cotter", template: "%s · Cotter" },
   description: "Work orders, findings, estimates and approvals between a truck shop and its fleets.",
+  // Added to a phone's home screen, Cotter opens like an app (public/manifest.webmanifest); app/icon.svg and
+  // app/apple-icon.png are the tab and home-screen icons by Next's file conventions.
+  manifest: "/manifest.webmanifest",
+  appleWebApp: { capable: true, title: "Cotter", statusBarStyle: "default" },
+  robots: { index: false, follow: false },
 };
 
 export const viewport: Viewport = {

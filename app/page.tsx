@@ -1,6 +1,6 @@
 import { redirect } from "next/navigation";
 import { needsSetup } from "@/db/queries/setup";
-import { currentUser } from "@/lib/auth/current-user";
+import { currentUser } from "@/lib/server/auth/current-user";
 import { isStaff } from "@/lib/auth/policy";
 
 // Asks the database whether this install is set up yet: never prerendered at build time.

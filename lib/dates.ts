@@ -1,16 +1,17 @@
 /** Calendar arithmetic in a named time zone, with Intl only (no library, no I/O). */
 
+import { memoised } from "./intl-cache";
+
+const wallClock = memoised(
+  (timeZone: string) =>
+    new Intl.DateTimeFormat("en-US", { timeZone, hourCycle: "h23", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit", second: "2-digit" }),
+);
+const formInput = memoised(
+  (timeZone: string) => new Intl.DateTimeFormat("en-CA", { timeZone, hourCycle: "h23", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit" }),
+);
+
 function offsetMinutes(instant: number, timeZone: string): number {
-  const parts = new Intl.DateTimeFormat("en-US", {
-    timeZone,
-    hourCycle: "h23",
-    year: "numeric",
-    month: "2-digit",
-    day: "2-digit",
-    hour: "2-digit",
-    minute: "2-digit",
-    second: "2-digit",
-  }).formatToParts(instant);
+  const parts = wallClock(timeZone).formatToParts(instant);
   const get = (type: string) => Number(parts.find((p) => p.type === type)?.value);
   const asUtc = Date.UTC(get("year"), get("month") - 1, get("day"), get("hour"), get("minute"), get("second"));
   return Math.round((asUtc - Math.floor(instant / 1000) * 1000) / 60_000);
@@ -65,7 +66,7 @@ export function localDateTimeIso(value: string, timeZone: string): string | null
 
 /** The form value ("YYYY-MM-DDTHH:mm") of an instant in a time zone, for a datetime-local input. */
 export function toLocalDateTimeInput(iso: string, timeZone: string): string {
-  const parts = new Intl.DateTimeFormat("en-CA", { timeZone, hourCycle: "h23", year: "numeric", month: "2-digit", day: "2-digit", hour: "2-digit", minute: "2-digit" }).formatToParts(new Date(iso));
+  const parts = formInput(timeZone).formatToParts(new Date(iso));
   const get = (type: string) => parts.find((p) => p.type === type)?.value ?? "00";
   return `${get("year")}-${get("month")}-${get("day")}T${get("hour")}:${get("minute")}`;
 }

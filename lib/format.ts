@@ -1,5 +1,7 @@
 /** Dates and times for people, in the shop's time zone. Pure: the clock is passed in. */
 
+import { memoised } from "./intl-cache";
+
 /**
  * The shop's zone (APP_TIME_ZONE). On the server it is read at start; in the
  * browser next.config.ts inlines the value the app was built with.
@@ -16,23 +18,24 @@ export function isTimeZone(name: string): boolean {
   }
 }
 
+const shortDate = memoised((timeZone: string) => new Intl.DateTimeFormat("en-US", { month: "short", day: "numeric", year: "numeric", timeZone }));
+const shortDateTime = memoised(
+  (timeZone: string) => new Intl.DateTimeFormat("en-US", { month: "short", day: "numeric", hour: "numeric", minute: "2-digit", timeZone }),
+);
+const isoDate = memoised((timeZone: string) => new Intl.DateTimeFormat("en-CA", { year: "numeric", month: "2-digit", day: "2-digit", timeZone }));
+const upTo = memoised((maximumFractionDigits: number) => new Intl.NumberFormat("en-US", { maximumFractionDigits }));
+
 export function formatDate(iso: string | null | undefined, timeZone = DEFAULT_TIME_ZONE): string {
   if (!iso) return "—";
   // Calendar dates (YYYY-MM-DD) have no time zone: show them as written.
   const date = /^\d{4}-\d{2}-\d{2}$/.test(iso) ? new Date(`${iso}T12:00:00Z`) : new Date(iso);
   const zone = /^\d{4}-\d{2}-\d{2}$/.test(iso) ? "UTC" : timeZone;
-  return new Intl.DateTimeFormat("en-US", { month: "short", day: "numeric", year: "numeric", timeZone: zone }).format(date);
+  return shortDate(zone).format(date);
 }
 
 export function formatDateTime(iso: string | null | undefined, timeZone = DEFAULT_TIME_ZONE): string {
   if (!iso) return "—";
-  return new Intl.DateTimeFormat("en-US", {
-    month: "short",
-    day: "numeric",
-    hour: "numeric",
-    minute: "2-digit",
-    timeZone,
-  }).format(new Date(iso));
+  return shortDateTime(timeZone).format(new Date(iso));
 }
 
 /** "3 min ago", "2 h ago", "4 days ago"; older than two weeks gives the date. */
@@ -50,11 +53,16 @@ export function formatAgo(iso: string, now: Date, timeZone = DEFAULT_TIME_ZONE):
 
 /** Calendar date (YYYY-MM-DD) of an instant in a time zone. */
 export function calendarDate(instant: Date, timeZone = DEFAULT_TIME_ZONE): string {
-  return new Intl.DateTimeFormat("en-CA", { year: "numeric", month: "2-digit", day: "2-digit", timeZone }).format(instant);
+  return isoDate(timeZone).format(instant);
 }
 
 export function formatQuantity(milli: number): string {
-  return (milli / 1000).toLocaleString("en-US", { maximumFractionDigits: 3 });
+  return upTo(3).format(milli / 1000);
+}
+
+/** A measured number with grouping and at most `maximumFractionDigits` decimals (12,345.6). */
+export function formatNumber(value: number, maximumFractionDigits = 0): string {
+  return upTo(maximumFractionDigits).format(value);
 }
 
 /** A server's detail ("approving $5,200.00 … is $5,000.00") as a sentence: capital first, full stop last. */

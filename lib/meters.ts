@@ -1,4 +1,5 @@
 import type { MeterKind } from "./domain";
+import { formatNumber } from "./format";
 
 export const METER_UNITS: Record<MeterKind, string> = { odometer: "mi", engine_hours: "h" };
 export const METER_LABELS: Record<MeterKind, string> = { odometer: "Odometer", engine_hours: "Engine hours" };
@@ -25,5 +26,5 @@ export function checkMeterReading(
 }
 
 function fmt(value: number): string {
-  return value.toLocaleString("en-US", { maximumFractionDigits: 1 });
+  return formatNumber(value, 1);
 }

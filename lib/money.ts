@@ -4,14 +4,11 @@
  * percent ("milli-percent": 8.875 % = 8875), so every product below is exact
  * integer arithmetic and only the final division rounds.
  */
+import { memoised } from "./intl-cache";
 
 export type Cents = number;
 
 const MAX_SAFE = BigInt(Number.MAX_SAFE_INTEGER);
-
-export function isCents(value: unknown): value is Cents {
-  return typeof value === "number" && Number.isSafeInteger(value);
-}
 
 export function assertCents(value: number, what = "amount"): Cents {
   if (!Number.isSafeInteger(value)) throw new RangeError(`${what} must be a whole number of cents, got ${value}`);
@@ -98,16 +95,13 @@ export function milliPctToPercent(milliPct: number): number {
   return milliPct / 1000;
 }
 
-const formatters = new Map<string, Intl.NumberFormat>();
+const currencyFormat = memoised((key: string) => {
+  const [locale, currency] = key.split("|") as [string, string];
+  return new Intl.NumberFormat(locale, { style: "currency", currency, minimumFractionDigits: 2 });
+});
 
 function formatter(currency: string, locale: string): Intl.NumberFormat {
-  const key = `${locale}|${currency}`;
-  let f = formatters.get(key);
-  if (!f) {
-    f = new Intl.NumberFormat(locale, { style: "currency", currency, minimumFractionDigits: 2 });
-    formatters.set(key, f);
-  }
-  return f;
+  return currencyFormat(`${locale}|${currency}`);
 }
 
 /** 124050 → "$1,240.50". Formatting happens only at the edge. */

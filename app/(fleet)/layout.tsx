@@ -3,7 +3,7 @@ import { AppShell } from "@/components/shell/app-shell";
 import { fleetNav } from "@/components/shell/nav-items";
 import { getAccountName } from "@/db/queries/settings";
 import { isStaff } from "@/lib/auth/policy";
-import { requireUser } from "@/lib/auth/current-user";
+import { requireUser } from "@/lib/server/auth/current-user";
 
 export default async function FleetLayout({ children }: { children: React.ReactNode }) {
   const user = await requireUser();

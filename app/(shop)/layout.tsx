@@ -2,7 +2,7 @@ import { AppShell } from "@/components/shell/app-shell";
 import { forbidden } from "next/navigation";
 import { getShopSettings } from "@/db/queries/settings";
 import { isStaff } from "@/lib/auth/policy";
-import { requireUser } from "@/lib/auth/current-user";
+import { requireUser } from "@/lib/server/auth/current-user";
 import { shopNav } from "@/components/shell/nav-items";
 
 export default async function ShopLayout({ children }: { children: React.ReactNode }) {

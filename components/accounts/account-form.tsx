@@ -5,7 +5,7 @@ import { useEffect, useState } from "react";
 import { Field, FormMessage, inputClass } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { saveAccountAction } from "@/lib/actions/accounts";
+import { saveAccountAction } from "@/lib/server/actions/accounts";
 import { OVERRUN_SHAPES } from "./overrun-shapes";
 
 export interface AccountFormValues {

@@ -1,7 +1,7 @@
 "use client";
 
 import { ToggleActionButton } from "@/components/ui/toggle-action-button";
-import { archiveAccountAction } from "@/lib/actions/accounts";
+import { archiveAccountAction } from "@/lib/server/actions/accounts";
 
 /** Archiving keeps the account's history and takes it off every list; it can be brought back. */
 export function ArchiveAccountButton({ accountId, archived }: { accountId: string; archived: boolean }) {

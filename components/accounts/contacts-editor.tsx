@@ -3,7 +3,7 @@
 import { useState, useTransition } from "react";
 import { inputClass } from "@/components/forms/field";
 import { Button } from "@/components/ui/button";
-import { saveContactsAction } from "@/lib/actions/accounts";
+import { saveContactsAction } from "@/lib/server/actions/accounts";
 
 export interface ContactRow {
   name: string;

@@ -3,7 +3,7 @@
 import { inputClass } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { signingLimitAction } from "@/lib/actions/accounts";
+import { signingLimitAction } from "@/lib/server/actions/accounts";
 
 /** One approver's signing limit, editable in place. */
 export function SigningLimitRow({ userId, name, email, limit }: { userId: string; name: string; email: string; limit: string }) {

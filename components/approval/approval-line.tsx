@@ -3,14 +3,15 @@
 import { useState } from "react";
 import { Money } from "@/components/ui/money";
 import { DecisionLine, LineStatePill } from "@/components/estimate/line-state";
-import type { LineView } from "@/db/queries/work-order-view";
+import type { ApprovalLineData } from "./approval-data";
 import { LINE_KIND_LABELS, type Decision } from "@/lib/domain";
 import { formatQuantity } from "@/lib/format";
 
+// The classes are in app/globals.css (.decide-*): the page repeats them on every line.
 const BUTTONS: { decision: Decision; label: string; style: string }[] = [
-  { decision: "approve", label: "Approve", style: "bg-rust text-white border-rust hover:bg-rust-deep" },
-  { decision: "decline", label: "Decline", style: "bg-paper-card text-ink border-ink hover:bg-paper-deep" },
-  { decision: "hold", label: "Hold for later", style: "bg-paper-card text-ink border-ink-soft hover:bg-paper-deep" },
+  { decision: "approve", label: "Approve", style: "decide-approve" },
+  { decision: "decline", label: "Decline", style: "decide-decline" },
+  { decision: "hold", label: "Hold for later", style: "decide-hold" },
 ];
 
 /** One line for the approver: what it is, what it costs, and three big buttons. */
@@ -22,7 +23,7 @@ export function ApprovalLine({
   onDecide,
   children,
 }: {
-  line: LineView;
+  line: ApprovalLineData;
   canDecide: boolean;
   busy: boolean;
   refusal: string | null;
@@ -33,7 +34,7 @@ export function ApprovalLine({
   const [showNote, setShowNote] = useState(false);
   const pending = line.state === "proposed";
   return (
-    <li id={`line-${line.id}`} className={`scroll-mt-4 rounded-card border-2 p-3 ${pending ? "border-ink bg-paper-card" : "border-rule bg-paper"}`} data-testid="approval-line" data-line-id={line.id} data-state={line.state}>
+    <li id={`line-${line.id}`} className="approval-line" data-testid="approval-line" data-line-id={line.id} data-state={line.state}>
       <div className="flex items-start justify-between gap-3">
         <div className="min-w-0">
           <p className="text-xs font-semibold text-ink-faint uppercase">{LINE_KIND_LABELS[line.kind]}</p>
@@ -86,7 +87,7 @@ export function ApprovalLine({
                 type="button"
                 disabled={busy}
                 onClick={() => onDecide(b.decision, note)}
-                className={`min-h-12 rounded-card border-2 px-2 text-sm font-bold disabled:opacity-50 ${b.style}`}
+                className={`decide ${b.style}`}
               >
                 {b.label}
               </button>

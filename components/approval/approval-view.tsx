@@ -1,21 +1,18 @@
 "use client";
 
-import { useState } from "react";
+import { useRouter } from "next/navigation";
+import { Fragment, useEffect, useState, type ReactNode } from "react";
 import useSWR from "swr";
 import { ApiError, fetchJson, LIVE_REFRESH_MS } from "@/components/data/fetcher";
 import { DecisionLog } from "@/components/estimate/decision-log";
-import { FindingCard } from "@/components/findings/finding-card";
-import { FindingList } from "@/components/findings/finding-list";
 import { PhotoStrip } from "@/components/findings/photo-strip";
 import { TotalsBar } from "@/components/estimate/totals-bar";
 import { Card, CardTitle } from "@/components/ui/card";
-import { Timeline } from "@/components/work-order/timeline";
-import type { WorkOrderView } from "@/db/queries/work-order-view";
 import type { Decision } from "@/lib/domain";
 import { asSentence } from "@/lib/format";
-import { READING_CAUTION } from "@/lib/specs";
 import { ApprovalLine } from "./approval-line";
 import { ApproveWhatFits, type Colleague } from "./approve-what-fits";
+import { serverPartsKey, type ApprovalData } from "./approval-data";
 import { LimitsPanel } from "./limits-panel";
 
 async function post(url: string, body: unknown) {
@@ -32,22 +29,40 @@ export function ApprovalView({
   canDecide,
   taxExempt,
   colleagues = [],
+  outOfService,
+  findingCards,
+  timeline,
+  partsKey,
 }: {
-  initial: WorkOrderView;
+  /** Only what this component updates live; the findings and the timeline come rendered by the server. */
+  initial: ApprovalData;
   canDecide: boolean;
   taxExempt: boolean;
   colleagues?: Colleague[];
+  /** The Out of service section (findings with their notes, rendered on the server), or null. */
+  outOfService: ReactNode;
+  /** Every other finding's card, rendered on the server, by finding id. */
+  findingCards: Record<string, ReactNode>;
+  timeline: ReactNode;
+  /** serverPartsKey() of what the server rendered: when the polled view differs, the server parts are fetched again. */
+  partsKey: string;
 }) {
   const key = `/api/v1/work-orders/${initial.id}`;
-  const { data, mutate } = useSWR<WorkOrderView>(key, fetchJson, { fallbackData: initial, refreshInterval: LIVE_REFRESH_MS });
+  // The polled answer is the whole API view; this page reads the ApprovalData part of it.
+  const { data, mutate } = useSWR<ApprovalData>(key, fetchJson, { fallbackData: initial, refreshInterval: LIVE_REFRESH_MS });
   const view = data ?? initial;
+  const router = useRouter();
+  const liveKey = serverPartsKey(view);
+  useEffect(() => {
+    // A new finding or update from the shop: ask the server for the parts it renders.
+    if (liveKey !== partsKey && liveKey !== "") router.refresh();
+  }, [liveKey, partsKey, router]);
   const [busy, setBusy] = useState(false);
   const [refusals, setRefusals] = useState<Record<string, string>>({});
   const [banner, setBanner] = useState<{ kind: "ok" | "refused"; text: string } | null>(null);
 
   const pending = view.lines.filter((l) => l.state === "proposed");
   // Out of service comes before anything else; other findings sit with their concern.
-  const outOfService = view.findings.filter((f) => f.severity === "out_of_service");
   const otherFindings = view.findings.filter((f) => f.severity !== "out_of_service");
   const findingById = new Map(view.findings.map((f) => [f.id, f]));
   const groups = [
@@ -90,19 +105,7 @@ export function ApprovalView({
 
   return (
     <div className="flex flex-col gap-4">
-      {outOfService.length ? (
-        <section aria-labelledby="oos-heading" className="flex flex-col gap-2">
-          <h2 id="oos-heading" className="text-lg font-bold">
-            Out of service
-          </h2>
-          <FindingList findings={outOfService} />
-        </section>
-      ) : null}
-      {!outOfService.some((f) => f.readings.length) && otherFindings.some((f) => f.readings.length) ? (
-        <p role="note" className="border-l-4 border-ink pl-3 text-sm text-ink-soft">
-          {READING_CAUTION}
-        </p>
-      ) : null}
+      {outOfService}
       <LimitsPanel limits={view.limits} closed={view.status === "released"} />
       {banner ? (
         <p
@@ -138,7 +141,7 @@ export function ApprovalView({
             {found.length ? (
               <div className="mb-2 flex flex-col gap-2">
                 {found.map((f) => (
-                  <FindingCard key={f.id} finding={f} />
+                  <Fragment key={f.id}>{findingCards[f.id] ?? null}</Fragment>
                 ))}
               </div>
             ) : null}
@@ -169,10 +172,7 @@ export function ApprovalView({
         <CardTitle>Decisions</CardTitle>
         <DecisionLog entries={view.decisionLog} describe={(lineId) => view.lines.find((l) => l.id === lineId)?.description ?? "Removed line"} />
       </Card>
-      <Card>
-        <CardTitle>Updates from the shop</CardTitle>
-        <Timeline entries={view.timeline} />
-      </Card>
+      {timeline}
     </div>
   );
 }

@@ -2,9 +2,10 @@
 
 import { useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
-import type { LineView, WorkOrderView } from "@/db/queries/work-order-view";
-import { passLinesOnAction } from "@/lib/actions/pass-on";
-import { describeLeftLines, planApproveWhatFits } from "@/lib/estimate";
+import type { ApprovalData, ApprovalLineData } from "./approval-data";
+import { passLinesOnAction } from "@/lib/server/actions/pass-on";
+// The one module, not the barrel: the browser needs the plan, not the whole estimate engine.
+import { describeLeftLines, planApproveWhatFits } from "@/lib/estimate/approve-fit";
 import { formatCents } from "@/lib/money";
 
 export interface Colleague {
@@ -26,12 +27,12 @@ export function ApproveWhatFits({
   onApprove,
   onPassed,
 }: {
-  view: WorkOrderView;
+  view: Pick<ApprovalData, "id" | "limits">;
   /** Waiting lines in the order the page shows them. */
-  waiting: LineView[];
+  waiting: ApprovalLineData[];
   colleagues: Colleague[];
   busy: boolean;
-  onApprove: (lines: LineView[], success: string) => void;
+  onApprove: (lines: ApprovalLineData[], success: string) => void;
   onPassed: (text: string, ok: boolean) => void;
 }) {
   const plan = planApproveWhatFits({

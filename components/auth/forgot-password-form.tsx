@@ -3,7 +3,7 @@
 import { Field, FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { requestResetAction } from "@/lib/actions/public";
+import { requestResetAction } from "@/lib/server/actions/public";
 
 export function ForgotPasswordForm() {
   const [state, action, pending, formRef] = useGuardedForm(requestResetAction);

@@ -3,7 +3,7 @@
 import { Field, FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { acceptInvitationAction, completeResetAction } from "@/lib/actions/public";
+import { acceptInvitationAction, completeResetAction } from "@/lib/server/actions/public";
 import { useSignInAfter } from "./use-sign-in-after";
 
 /** Choose a password from an e-mailed link (an invitation or a reset), then go straight in. */

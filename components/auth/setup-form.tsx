@@ -3,7 +3,7 @@
 import { Field, FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { setupAction } from "@/lib/actions/public";
+import { setupAction } from "@/lib/server/actions/public";
 import { useSignInAfter } from "./use-sign-in-after";
 
 /** The one-time set-up of an empty Cotter: the shop, its labour rate, and its owner. */

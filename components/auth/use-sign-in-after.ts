@@ -1,7 +1,7 @@
 "use client";
 
 import { useEffect, useRef, useState, type FormEvent } from "react";
-import type { ActionResult } from "@/lib/auth/guarded-action";
+import type { ActionResult } from "@/lib/server/auth/guarded-action";
 import { signInWith } from "./sign-in-after";
 
 /**

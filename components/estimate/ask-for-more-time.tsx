@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useId, useState, useTransition } from "react";
 import { inputClass } from "@/components/forms/field";
 import { Button } from "@/components/ui/button";
-import { askForMoreTimeAction } from "@/lib/actions/time-clock";
+import { askForMoreTimeAction } from "@/lib/server/actions/time-clock";
 
 /** The writer's one step: ask the customer for more diagnosis hours (a line that goes to the approver). */
 export function AskForMoreTime({ lineId, workOrderId }: { lineId: string; workOrderId: string }) {

@@ -4,7 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
 import { Money } from "@/components/ui/money";
-import { bringBackAction } from "@/lib/actions/estimate";
+import { bringBackAction } from "@/lib/server/actions/estimate";
 import { formatDate } from "@/lib/format";
 
 export interface DeferredOffer {

@@ -5,7 +5,7 @@ import { useMemo, useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
 import type { LineView, WorkOrderView } from "@/db/queries/work-order-view";
 import type { LineKind } from "@/lib/domain";
-import { sendEstimateAction } from "@/lib/actions/estimate";
+import { sendEstimateAction } from "@/lib/server/actions/estimate";
 import { isApprovedState, priceEstimate, type AccountSettings, type EstimateLine, type ShopSettings } from "@/lib/estimate";
 import { formatCents } from "@/lib/money";
 import { LineForm, valuesToLine, type LineFormValues, type RateOption } from "./line-form";

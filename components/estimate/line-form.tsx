@@ -5,7 +5,7 @@ import { useState, useTransition } from "react";
 import { inputClass } from "@/components/forms/field";
 import { Button } from "@/components/ui/button";
 import { LINE_KIND_LABELS, LINE_KINDS, type LineKind } from "@/lib/domain";
-import { addLineAction, editLineAction } from "@/lib/actions/estimate";
+import { addLineAction, editLineAction } from "@/lib/server/actions/estimate";
 import { formatCents, lineAmountCents } from "@/lib/money";
 import { centsToText, rateIdFor, switchKind, valuesToLine, type LineFormValues, type RateOption } from "./line-values";
 

@@ -5,7 +5,7 @@ import { useTransition } from "react";
 import { Money } from "@/components/ui/money";
 import type { LineView } from "@/db/queries/work-order-view";
 import { LINE_KIND_LABELS } from "@/lib/domain";
-import { coreReturnedAction, deleteLineAction, moveLineAction, startStandingAction } from "@/lib/actions/estimate";
+import { coreReturnedAction, deleteLineAction, moveLineAction, startStandingAction } from "@/lib/server/actions/estimate";
 import { isApprovedState } from "@/lib/estimate";
 import { formatDate, formatQuantity } from "@/lib/format";
 import { DecisionLine, LineStatePill } from "./line-state";

@@ -1,4 +1,5 @@
 import type { Verdict } from "@/lib/domain";
+import { formatNumber } from "@/lib/format";
 import { READING_KINDS, formatInches, sourceLine, type ReadingKind } from "@/lib/specs";
 import { VerdictMark } from "./verdict-mark";
 
@@ -21,8 +22,8 @@ function kindLabel(kind: string): string {
 export function formatReadingValue(value: number, unit: string): string {
   if (unit === "in") return `${formatInches(value)} in`;
   if (unit === "days") return value < 0 ? `${-value} days past due` : `${value} days left`;
-  if (unit === "/32 in") return `${value.toLocaleString("en-US", { maximumFractionDigits: 2 })}/32 in`;
-  return `${value.toLocaleString("en-US", { maximumFractionDigits: 3 })} ${unit}`;
+  if (unit === "/32 in") return `${formatNumber(value, 2)}/32 in`;
+  return `${formatNumber(value, 3)} ${unit}`;
 }
 
 /** Each reading: what and where, the number, the verdict in words, the limit used and its source. */

@@ -1,9 +1,9 @@
 import Link from "next/link";
 import { SeverityMark } from "@/components/findings/severity-mark";
-import type { WorkOrderListItem } from "@/db/queries/work-order-list";
+import type { FloorCard } from "@/db/queries/work-order-list";
 import { formatDateTime, technicianLabel } from "@/lib/format";
 
-export function WorkOrderCard({ wo, now, href }: { wo: WorkOrderListItem; now: number; href: string }) {
+export function WorkOrderCard({ wo, now, href }: { wo: FloorCard; now: number; href: string }) {
   const late = wo.promisedAt !== null && Date.parse(wo.promisedAt) < now && wo.status !== "ready";
   return (
     <Link

@@ -1,7 +1,7 @@
 "use client";
 
 import { useActionState, useEffect, useRef } from "react";
-import type { ActionResult } from "@/lib/auth/guarded-action";
+import type { ActionResult } from "@/lib/server/auth/guarded-action";
 
 type Sent<T> = { result: ActionResult<T>; sent: FormData } | null;
 

@@ -3,7 +3,7 @@
 import { Field, FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { creditNoteAction } from "@/lib/actions/invoices";
+import { creditNoteAction } from "@/lib/server/actions/invoices";
 import { formatCents } from "@/lib/money";
 
 /** A numbered credit against an issued invoice, up to what is still owed; the invoice itself stays as issued. */

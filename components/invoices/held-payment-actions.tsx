@@ -3,7 +3,7 @@
 import { FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { resolvePaymentAction } from "@/lib/actions/invoices";
+import { resolvePaymentAction } from "@/lib/server/actions/invoices";
 
 /** The shop's decision on a card payment held for review. */
 export function HeldPaymentActions({ paymentId, canApply }: { paymentId: string; canApply: boolean }) {

@@ -4,7 +4,7 @@ import { Field, FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
 import { Money } from "@/components/ui/money";
-import { issueInvoiceAction } from "@/lib/actions/invoices";
+import { issueInvoiceAction } from "@/lib/server/actions/invoices";
 
 export function IssueInvoiceForm({
   workOrderId,

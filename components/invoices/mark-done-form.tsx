@@ -4,7 +4,7 @@ import { FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
 import { LINE_STATE_LABELS, type LineState } from "@/lib/domain";
-import { markLinesDoneAction } from "@/lib/actions/invoices";
+import { markLinesDoneAction } from "@/lib/server/actions/invoices";
 
 /** Approved work not marked done is not billed; the shop can close it here if it is finished. */
 export function MarkDoneForm({ workOrderId, lines }: { workOrderId: string; lines: { id: string; description: string; state: LineState }[] }) {

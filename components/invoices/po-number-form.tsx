@@ -3,7 +3,7 @@
 import { Field, FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { setPoNumberAction } from "@/lib/actions/invoices";
+import { setPoNumberAction } from "@/lib/server/actions/invoices";
 
 /** The fleet enters the PO number a work order needs before the shop can invoice it. */
 export function PoNumberForm({ workOrderId, label }: { workOrderId: string; label: string }) {

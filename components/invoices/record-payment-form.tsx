@@ -4,7 +4,7 @@ import { useState } from "react";
 import { Field, FormMessage, inputClass } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { recordPaymentAction } from "@/lib/actions/invoices";
+import { recordPaymentAction } from "@/lib/server/actions/invoices";
 import { decimalDollars } from "@/lib/invoices/csv";
 
 

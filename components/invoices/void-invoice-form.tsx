@@ -3,7 +3,7 @@
 import { Field, FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { voidInvoiceAction } from "@/lib/actions/invoices";
+import { voidInvoiceAction } from "@/lib/server/actions/invoices";
 
 /** Voiding keeps the invoice and its number; the work order can then be invoiced again. */
 export function VoidInvoiceForm({ invoiceId, label }: { invoiceId: string; label: string }) {

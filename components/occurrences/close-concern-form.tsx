@@ -3,7 +3,7 @@
 import { FormMessage, inputClass } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { closeConcernAction } from "@/lib/actions/intermittent-concerns";
+import { closeConcernAction } from "@/lib/server/actions/intermittent-concerns";
 
 
 /** Closes the concern with the cause found; the fleet reads this as the shop's conclusion. */

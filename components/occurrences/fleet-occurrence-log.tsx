@@ -10,8 +10,22 @@ import { logUrl, type OccurrenceLog } from "./types";
 import { useTemperatureUnit } from "./use-temperature-unit";
 
 /** The fleet's page for one unit's log: the form first, then what the shop concluded, then the log. */
-export function FleetOccurrenceLog({ unitId, initial, meId }: { unitId: string; initial: OccurrenceLog; meId: string }) {
-  const { data, mutate } = useSWR<OccurrenceLog>(logUrl(unitId), fetchJson, { fallbackData: initial, refreshInterval: LIVE_REFRESH_MS * 4 });
+export function FleetOccurrenceLog({
+  unitId,
+  initial,
+  meId,
+  page,
+  pager,
+}: {
+  unitId: string;
+  initial: OccurrenceLog;
+  meId: string;
+  /** Which page of the log this is (the API's page size and cursor). */
+  page: { limit: number; cursor?: string };
+  /** Links to the other pages, rendered by the server. */
+  pager?: React.ReactNode;
+}) {
+  const { data, mutate } = useSWR<OccurrenceLog>(logUrl(unitId, null, page), fetchJson, { fallbackData: initial, refreshInterval: LIVE_REFRESH_MS * 4 });
   const [unit] = useTemperatureUnit();
   const log = data ?? initial;
   const open = log.concerns.filter((c) => !c.closedAt);
@@ -41,8 +55,9 @@ export function FleetOccurrenceLog({ unitId, initial, meId }: { unitId: string; 
       </Card>
       {open.length > 0 ? conclusions : null}
       <Card>
-        <CardTitle>Your log ({log.occurrences.length})</CardTitle>
+        <CardTitle id="log-title">Your log, newest first</CardTitle>
         <OccurrenceList entries={log.occurrences} unit={unit} meId={meId} empty="Nothing logged on this unit yet." />
+        {pager}
       </Card>
     </div>
   );

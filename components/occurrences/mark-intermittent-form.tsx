@@ -3,7 +3,7 @@
 import { FormMessage, inputClass } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { markIntermittentAction } from "@/lib/actions/intermittent-concerns";
+import { markIntermittentAction } from "@/lib/server/actions/intermittent-concerns";
 
 
 export const RECORD_HINT_EXAMPLE =

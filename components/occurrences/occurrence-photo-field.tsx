@@ -7,7 +7,7 @@ import { CameraIcon, UploadProblems, UploadProgress, contentRefusal, progressed,
 import { Button, buttonClass } from "@/components/ui/button";
 import type { DraftPhoto } from "@/lib/occurrences/draft";
 import { ACCEPTED_WORDS, PHOTO_ACCEPT, refusalFor } from "@/lib/uploads/photo-rules";
-import type { PhotoUploadResult } from "@/lib/uploads/store-photo";
+import type { PhotoUploadResult } from "@/lib/server/uploads/store-photo";
 import { VideoStillPicker, isVideoFile } from "./video-still-picker";
 
 const NO_SIGNAL = "No connection: the photo was not sent. The rest of your entry is kept; add the photo again when you have signal, or send without it.";

@@ -2,7 +2,7 @@ import Link from "next/link";
 import { Card, CardTitle } from "@/components/ui/card";
 import { watchedConcerns } from "@/db/queries/intermittent-concerns";
 import { listOccurrences } from "@/db/queries/occurrences";
-import { requireUser } from "@/lib/auth/current-user";
+import { requireUser } from "@/lib/server/auth/current-user";
 import { formatDate } from "@/lib/format";
 import { daysSincePhrase, summarizePattern } from "@/lib/occurrences/pattern";
 

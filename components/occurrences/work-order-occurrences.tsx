@@ -1,7 +1,7 @@
 import { Card, CardTitle } from "@/components/ui/card";
 import { markableConcerns } from "@/db/queries/intermittent-concerns";
 import { unitIntermittentConcerns } from "@/db/queries/occurrences";
-import { requireUser } from "@/lib/auth/current-user";
+import { requireUser } from "@/lib/server/auth/current-user";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { IntermittentConcernCard } from "./intermittent-concern-card";
 import { MarkIntermittentForm } from "./mark-intermittent-form";

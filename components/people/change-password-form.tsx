@@ -5,7 +5,7 @@ import { Field, FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
 import { useSignInAfter } from "@/components/auth/use-sign-in-after";
-import { changePasswordAction } from "@/lib/actions/people";
+import { changePasswordAction } from "@/lib/server/actions/people";
 
 /** Your own password. Changing it ends your other sessions; this browser signs in again with the new one. */
 export function ChangePasswordForm() {

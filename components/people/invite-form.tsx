@@ -4,7 +4,7 @@ import { useState } from "react";
 import { Field, FormMessage, SelectField } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { inviteAction } from "@/lib/actions/people";
+import { inviteAction } from "@/lib/server/actions/people";
 import { FLEET_ROLES, ROLE_LABELS, ROLES, isShopRole, type Role } from "@/lib/domain";
 import { formatDateTime } from "@/lib/format";
 

@@ -2,7 +2,7 @@
 
 import { useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
-import { resendInvitationAction, withdrawInvitationAction } from "@/lib/actions/people";
+import { resendInvitationAction, withdrawInvitationAction } from "@/lib/server/actions/people";
 import { ROLE_LABELS, type Role } from "@/lib/domain";
 import { formatDateTime } from "@/lib/format";
 

@@ -5,7 +5,7 @@ import { inputClass } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
 import { PersonActiveButton } from "@/components/settings/person-active-button";
-import { updatePersonAction } from "@/lib/actions/people";
+import { updatePersonAction } from "@/lib/server/actions/people";
 import { FLEET_ROLES, ROLE_LABELS, SHOP_ROLES, isShopRole, type Role } from "@/lib/domain";
 
 export interface PersonRowData {

@@ -3,7 +3,7 @@ import { SeverityMark } from "@/components/findings/severity-mark";
 import { EmptyState } from "@/components/ui/empty-state";
 import type { ServiceRequestItem } from "@/db/queries/service-requests";
 import { SERVICE_REQUEST_STATUS_LABELS } from "@/lib/domain";
-import { formatDateTime } from "@/lib/format";
+import { formatDateTime, formatNumber } from "@/lib/format";
 
 /** Defect reports with where each stands: waiting for the shop, checked in on a visit, fixed. */
 export function ReportList({ rows, shop, empty }: { rows: ServiceRequestItem[]; shop: boolean; empty: string }) {
@@ -38,7 +38,7 @@ export function ReportList({ rows, shop, empty }: { rows: ServiceRequestItem[]; 
           {r.note ? <p className="mt-1 text-sm">“{r.note}”</p> : null}
           <p className="mt-1 text-xs text-ink-faint">
             Reported by {r.reporterName}, {formatDateTime(r.createdAt)}
-            {r.odometer !== null ? ` · ${r.odometer.toLocaleString("en-US")} mi` : ""}
+            {r.odometer !== null ? ` · ${formatNumber(r.odometer)} mi` : ""}
             {r.photos.length ? ` · ${r.photos.length} photo` : ""}
           </p>
           {shop && r.status === "open" ? (

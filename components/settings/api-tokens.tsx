@@ -4,7 +4,7 @@ import { useTransition } from "react";
 import { Field, FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { createTokenAction, revokeTokenAction } from "@/lib/actions/api-tokens";
+import { createTokenAction, revokeTokenAction } from "@/lib/server/actions/api-tokens";
 import { formatDateTime } from "@/lib/format";
 
 export interface TokenRow {

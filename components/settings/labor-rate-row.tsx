@@ -3,7 +3,7 @@
 import { inputClass } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { laborRateAction } from "@/lib/actions/shop-settings";
+import { laborRateAction } from "@/lib/server/actions/shop-settings";
 
 /** One labour rate (or a blank one to add). */
 export function LaborRateRow({ rate }: { rate?: { id: string; name: string; rate: string; isDefault: boolean; active: boolean } }) {

@@ -1,7 +1,7 @@
 "use client";
 
 import { useTransition } from "react";
-import { personActiveAction } from "@/lib/actions/people";
+import { personActiveAction } from "@/lib/server/actions/people";
 
 export function PersonActiveButton({ userId, active }: { userId: string; active: boolean }) {
   const [pending, start] = useTransition();

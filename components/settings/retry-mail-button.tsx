@@ -1,7 +1,7 @@
 "use client";
 
 import { useTransition } from "react";
-import { retryMailAction } from "@/lib/actions/mail";
+import { retryMailAction } from "@/lib/server/actions/mail";
 
 export function RetryMailButton({ id }: { id: string }) {
   const [pending, start] = useTransition();

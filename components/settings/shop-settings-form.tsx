@@ -3,7 +3,7 @@
 import { Field, FormMessage } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { shopSettingsAction } from "@/lib/actions/shop-settings";
+import { shopSettingsAction } from "@/lib/server/actions/shop-settings";
 
 export interface ShopFormValues {
   shopName: string;

@@ -1,7 +1,7 @@
 "use client";
 
 import { useState, useTransition } from "react";
-import type { ActionResult } from "@/lib/auth/guarded-action";
+import type { ActionResult } from "@/lib/server/auth/guarded-action";
 import { Button } from "./button";
 
 /** One button that turns a state on or off through a guarded action (archive an account, retire a unit). */

@@ -4,7 +4,7 @@ import Link from "next/link";
 import { useState, useTransition } from "react";
 import { inputClass } from "@/components/forms/field";
 import { Button } from "@/components/ui/button";
-import { importUnitsAction, previewImportAction } from "@/lib/actions/units";
+import { importUnitsAction, previewImportAction } from "@/lib/server/actions/units";
 import type { CsvCheck } from "@/lib/units/csv-import";
 
 /**

@@ -1,4 +1,4 @@
-import { formatDate } from "@/lib/format";
+import { formatDate, formatNumber } from "@/lib/format";
 import type { MeterKind } from "@/lib/domain";
 import { METER_LABELS, METER_UNITS } from "@/lib/meters";
 
@@ -30,7 +30,7 @@ export function MeterList({ rows }: { rows: MeterRow[] }) {
               {r.meterReplaced ? <span className="ml-1 text-rust-deep">(new meter)</span> : null}
             </td>
             <td className="figures py-1 text-right">
-              {r.value.toLocaleString("en-US", { maximumFractionDigits: 1 })} {METER_UNITS[r.kind]}
+              {formatNumber(r.value, 1)} {METER_UNITS[r.kind]}
             </td>
           </tr>
         ))}

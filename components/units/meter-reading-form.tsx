@@ -3,7 +3,7 @@
 import { Field, FormMessage, inputClass } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { addMeterReadingAction } from "@/lib/actions/meter-readings";
+import { addMeterReadingAction } from "@/lib/server/actions/meter-readings";
 
 export function MeterReadingForm({ unitId }: { unitId: string }) {
   const [state, formAction, pending, formRef] = useGuardedForm(addMeterReadingAction);

@@ -1,7 +1,7 @@
 "use client";
 
 import { ToggleActionButton } from "@/components/ui/toggle-action-button";
-import { retireUnitAction } from "@/lib/actions/units";
+import { retireUnitAction } from "@/lib/server/actions/units";
 
 /** A retired unit keeps its history and leaves every list; its number is free for a replacement. */
 export function RetireUnitButton({ unitId, retired }: { unitId: string; retired: boolean }) {

@@ -5,7 +5,7 @@ import { useEffect } from "react";
 import { Field, FormMessage, SelectField } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { createUnitAction, editUnitAction } from "@/lib/actions/units";
+import { createUnitAction, editUnitAction } from "@/lib/server/actions/units";
 import { INSPECTION_BASES, INSPECTION_BASIS_LABELS } from "@/lib/domain";
 import { VinField } from "./vin-field";
 

@@ -66,28 +66,3 @@ export function UnitList({
     </ul>
   );
 }
-
-/** "Next page" and "First page" links that keep the search. */
-export function Pager({ base, params, nextCursor }: { base: string; params: Record<string, string | undefined>; nextCursor: string | null }) {
-  const query = (extra: Record<string, string | undefined>) => {
-    const q = new URLSearchParams();
-    for (const [k, v] of Object.entries({ ...params, ...extra })) if (v) q.set(k, v);
-    const s = q.toString();
-    return s ? `${base}?${s}` : base;
-  };
-  if (!nextCursor && !params.cursor) return null;
-  return (
-    <nav aria-label="Pages" className="mt-3 flex gap-3">
-      {params.cursor ? (
-        <Link href={query({ cursor: undefined })} className={buttonClass("secondary", "no-underline")}>
-          First page
-        </Link>
-      ) : null}
-      {nextCursor ? (
-        <Link href={query({ cursor: nextCursor })} className={buttonClass("secondary", "no-underline")}>
-          Next page
-        </Link>
-      ) : null}
-    </nav>
-  );
-}

@@ -7,7 +7,7 @@ import { staffOptions } from "./staff-options";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
 import { Money } from "@/components/ui/money";
-import { checkInAction } from "@/lib/actions/visits";
+import { checkInAction } from "@/lib/server/actions/visits";
 
 export interface CheckInSetup {
   unitId: string;

@@ -3,7 +3,7 @@
 import { FormMessage, inputClass } from "@/components/forms/field";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { addConcernAction, concernAction } from "@/lib/actions/visits";
+import { addConcernAction, concernAction } from "@/lib/server/actions/visits";
 import type { ConcernView } from "@/components/work-order/concern-list";
 
 /** One concern's three Cs: the complaint as written at check-in, and cause and correction as the work goes. */

@@ -4,7 +4,7 @@ import { Field, FormMessage, SelectField } from "@/components/forms/field";
 import { staffOptions } from "./staff-options";
 import { useGuardedForm } from "@/components/forms/use-guarded-form";
 import { Button } from "@/components/ui/button";
-import { visitDetailsAction } from "@/lib/actions/visits";
+import { visitDetailsAction } from "@/lib/server/actions/visits";
 
 /** Who works on the unit, when it is promised, the PO: each change is a dated entry on the fleet's timeline. */
 export function VisitDetailsForm({

@@ -4,7 +4,8 @@ import { accountContacts, accounts, auditLog, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { invalidInput } from "@/lib/http/problem";
 import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
-import { budgetUsedCents, currentFiscalYear } from "./estimate-context";
+import { budgetUsedCents } from "./budget-use";
+import { currentFiscalYear } from "./estimate-context";
 import { scopedTo } from "./scope";
 
 /** The fleet accounts the caller may see (every one for staff, their own for fleet people), with budget used this fiscal year. Archived ones only when asked. */

@@ -8,6 +8,7 @@ import { HttpError, conflict, invalidInput, notFound } from "@/lib/http/problem"
 import { nowIso } from "@/lib/ids";
 import { defectComplaint } from "@/lib/service-requests";
 import type { CheckInInput } from "@/lib/validation/visit";
+import { workOrderOut } from "@/lib/records/work-order";
 import { recordAudit } from "./audit";
 import { copyDeferredLines } from "./estimate-lines";
 import { recordFormReading } from "./meters";
@@ -117,7 +118,7 @@ export async function checkIn(user: SessionUser, input: CheckInInput, notify?: I
         accountId: unit.accountId,
         detail: { number: wo!.number, unit: unit.unitNumber, concerns: complaints.length, serviceRequestId: request?.id ?? null },
       });
-      const checkedIn = { ...wo!, label: workOrderLabel(wo!.number), concerns: complaints.map((complaint) => ({ complaint })), serviceRequestId: request?.id ?? null };
+      const checkedIn = { ...wo!, ...workOrderOut(wo!), concerns: complaints.map((complaint) => ({ complaint })), serviceRequestId: request?.id ?? null };
       await notify?.(tx, checkedIn);
       return checkedIn;
     });

@@ -2,34 +2,20 @@ import { and, desc, eq, gt } from "drizzle-orm";
 import { getDb, writeTx } from "@/db/client";
 import { checkoutSessions, invoices, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { invoiceLabel, workOrderLabel } from "@/lib/domain";
-import { conflict, HttpError, notFound } from "@/lib/http/problem";
+import { invoiceLabel } from "@/lib/domain";
+import { conflict, notFound } from "@/lib/http/problem";
 import { balanceOf } from "@/lib/invoices/balance";
-import { appUrl } from "@/lib/mail/send";
-import { createCheckoutSession, isServiceUnavailable, retrieveCheckoutSession } from "@/lib/payments/stripe";
 import { recordAudit } from "./audit";
 import { scopedTo } from "./scope";
 
 const REUSE_WITHIN_MS = 20 * 60 * 60 * 1000;
 
-const paymentServiceUnavailable = () =>
-  new HttpError(
-    503,
-    "payment_service_unavailable",
-    "Payment service unavailable",
-    "The card-payment service is not answering, so no payment page was opened and nothing was charged. Try again in a few minutes, or pay by cheque or bank transfer.",
-  );
-
-/** Where the payment page sends the browser back: the invoice, never a page that records anything. */
-export function fleetInvoicePath(invoiceId: string): string {
-  return `/fleet/invoices/${invoiceId}`;
-}
-
 /**
- * A payment page for the invoice's open balance (clerk, approver). An open page
- * for the same amount is reused, so two tabs do not make two payments.
+ * The invoice a payer wants a payment page for, scoped, with its open balance,
+ * and the newest page still open for exactly that amount (so two tabs do not
+ * make two payments). 404 for another account's invoice, 409 when nothing is owed.
  */
-export async function startCheckout(user: SessionUser, invoiceId: string): Promise<{ url: string; sessionId: string }> {
+export async function payableInvoice(user: SessionUser, invoiceId: string) {
   const db = getDb();
   const [inv] = await db
     .select({ invoice: invoices, workOrderNumber: workOrders.number })
@@ -59,50 +45,37 @@ export async function startCheckout(user: SessionUser, invoiceId: string): Promi
     )
     .orderBy(desc(checkoutSessions.createdAt))
     .limit(1);
-  if (recent) {
-    const current = await retrieveCheckoutSession(recent.id).catch(() => null);
-    if (current?.status === "open" && current.url) return { url: current.url, sessionId: current.id };
-    if (current?.status) {
-      await writeTx((tx) => tx.update(checkoutSessions).set({ status: current.status ?? "expired" }).where(eq(checkoutSessions.id, recent.id)));
-    }
-  }
+  return { invoice: i, workOrderNumber: inv.workOrderNumber, label, balance, recentSessionId: recent?.id ?? null };
+}
 
-  const back = appUrl(fleetInvoicePath(i.id));
-  const session = await createCheckoutSession({
-    invoiceId: i.id,
-    accountId: i.accountId,
-    title: `Invoice ${label}`,
-    description: `${workOrderLabel(inv.workOrderNumber)}, ${i.unitSnapshot?.unitNumber ?? "unit"}: open balance`,
-    amountCents: balance,
-    successUrl: `${back}?checkout=returned`,
-    cancelUrl: `${back}?checkout=cancelled`,
-    customerEmail: user.email,
-  }).catch((error: unknown) => {
-    if (!isServiceUnavailable(error)) throw error;
-    console.error(`checkout for ${label}: payment service unavailable`, error);
-    throw paymentServiceUnavailable();
-  });
-  if (!session.url) throw new Error("the payment service returned a session without a page");
-  const url = session.url;
+/** What the payment service now says of a page we had as open. */
+export async function setCheckoutStatus(sessionId: string, status: string): Promise<void> {
+  await writeTx((tx) => tx.update(checkoutSessions).set({ status }).where(eq(checkoutSessions.id, sessionId)));
+}
+
+/** A payment page the payment service has just opened, kept with who asked for it. */
+export async function recordCheckoutSession(
+  user: SessionUser,
+  s: { id: string; invoiceId: string; accountId: string; amountCents: number; url: string },
+): Promise<void> {
   await writeTx(async (tx) => {
     await tx.insert(checkoutSessions).values({
-      id: session.id,
-      invoiceId: i.id,
-      accountId: i.accountId,
-      amountCents: balance,
+      id: s.id,
+      invoiceId: s.invoiceId,
+      accountId: s.accountId,
+      amountCents: s.amountCents,
       status: "open",
-      url,
+      url: s.url,
       createdBy: user.id,
     });
     await recordAudit(tx, user, {
       action: "checkout.start",
       entityType: "invoice",
-      entityId: i.id,
-      accountId: i.accountId,
-      detail: { sessionId: session.id, amountCents: balance },
+      entityId: s.invoiceId,
+      accountId: s.accountId,
+      detail: { sessionId: s.id, amountCents: s.amountCents },
     });
   });
-  return { url, sessionId: session.id };
 }
 
 /** The newest payment page opened for an invoice, to tell a payer coming back whether it has been confirmed. */

@@ -1,9 +1,9 @@
-import { and, eq, gte, inArray, lt, sql } from "drizzle-orm";
+import { and, eq, sql } from "drizzle-orm";
 import type { Reader } from "@/db/client";
-import { accounts, estimateLines, shopSettings, workOrders, type Account, type EstimateLine as LineRow, type ShopSettings as ShopRow } from "@/db/schema";
+import { accounts, estimateLines, shopSettings, units, workOrders, type Account, type EstimateLine as LineRow, type ShopSettings as ShopRow } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { addDays, startOfDayIso } from "@/lib/dates";
-import { APPROVED_STATES, fiscalYearOf, type AccountSettings, type EstimateLine, type FiscalYear, type ShopSettings } from "@/lib/estimate";
+import { fiscalYearOf, type AccountSettings, type EstimateLine, type FiscalYear, type ShopSettings } from "@/lib/estimate";
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
 import { notFound } from "@/lib/http/problem";
@@ -63,41 +63,44 @@ export async function loadWorkOrderRow(tx: Reader, user: Pick<SessionUser, "role
 
 /**
  * Everything the estimate rules need about one work order, read inside the
- * caller's transaction so the check and the write see the same rows.
+ * caller's transaction so the check and the write see the same rows: the work
+ * order with its account, unit number and the shop's settings in one statement,
+ * then its lines. `of` names the work order, or one of its lines.
  */
-export async function loadEstimateContext(tx: Reader, user: SessionUser, workOrderId: string) {
-  const wo = await loadWorkOrderRow(tx, user, workOrderId);
-  const [[account], [shop], lines] = await Promise.all([
-    tx.select().from(accounts).where(eq(accounts.id, wo.accountId)).limit(1),
-    tx.select().from(shopSettings).where(eq(shopSettings.id, 1)).limit(1),
-    tx.select().from(estimateLines).where(eq(estimateLines.workOrderId, wo.id)).orderBy(estimateLines.position, estimateLines.createdAt),
+export async function loadEstimateContext(tx: Reader, user: Pick<SessionUser, "role" | "accountId">, of: string | { lineId: string }) {
+  const woId = typeof of === "string" ? sql`${of}` : sql`(select ${estimateLines.workOrderId} from ${estimateLines} where ${estimateLines.id} = ${of.lineId})`;
+  const [head, lines] = await Promise.all([
+    tx
+      .select({ wo: workOrders, account: accounts, shop: shopSettings, unitNumber: units.unitNumber })
+      .from(workOrders)
+      .innerJoin(accounts, eq(accounts.id, workOrders.accountId))
+      .innerJoin(units, eq(units.id, workOrders.unitId))
+      .leftJoin(shopSettings, eq(shopSettings.id, 1))
+      .where(and(sql`${workOrders.id} = ${woId}`, scopedTo(workOrders.accountId, user)))
+      .limit(1)
+      .then((rows) => rows[0]),
+    tx.select().from(estimateLines).where(sql`${estimateLines.workOrderId} = ${woId}`).orderBy(estimateLines.position, estimateLines.createdAt),
   ]);
-  if (!account || !shop) throw new Error("work order without account or shop settings");
-  return { wo, account, shop, lines };
+  if (!head) throw notFound(typeof of === "string" ? "That work order" : "That line");
+  if (!head.shop) throw new Error("shop settings missing");
+  return { wo: head.wo, account: head.account, shop: head.shop, unitNumber: head.unitNumber, lines };
 }
 
 export type EstimateContext = Awaited<ReturnType<typeof loadEstimateContext>>;
 
+type FiscalYearBounds = { fy: FiscalYear; fromIso: string; toIso: string };
+// The fiscal year holding an instant is the one whose bounds hold it, so the last one found per start month and zone is reused while `now` is inside it (the time-zone arithmetic was a good part of a decision's own work).
+const lastFiscalYear = new Map<string, FiscalYearBounds>();
+
 /** The fiscal year containing `now` for an account, with its UTC bounds in the shop's time zone. */
 /** Fiscal years turn at midnight in the shop's time zone (APP_TIME_ZONE), the one zone every date uses. */
-export function currentFiscalYear(account: Pick<Account, "fiscalYearStartMonth">, now = new Date(), timeZone = env().APP_TIME_ZONE) {
+export function currentFiscalYear(account: Pick<Account, "fiscalYearStartMonth">, now = new Date(), timeZone = env().APP_TIME_ZONE): FiscalYearBounds {
+  const key = `${account.fiscalYearStartMonth}|${timeZone}`;
+  const at = now.toISOString();
+  const known = lastFiscalYear.get(key);
+  if (known && known.fromIso <= at && at < known.toIso) return known;
   const fy: FiscalYear = fiscalYearOf(calendarDate(now, timeZone), account.fiscalYearStartMonth);
-  return { fy, fromIso: startOfDayIso(fy.startDate, timeZone), toIso: startOfDayIso(addDays(fy.endDate, 1), timeZone) };
-}
-
-/** What the account has approved in the fiscal year, every work order (amounts at approval; credits make no room, see countedCents). */
-export async function budgetUsedCents(tx: Reader, accountId: string, bounds: { fromIso: string; toIso: string }): Promise<number> {
-  const [row] = await tx
-    .select({ total: sql<number>`coalesce(sum(max(${estimateLines.approvedAmountCents}, 0)), 0)` })
-    .from(estimateLines)
-    .innerJoin(workOrders, eq(workOrders.id, estimateLines.workOrderId))
-    .where(
-      and(
-        eq(workOrders.accountId, accountId),
-        inArray(estimateLines.state, [...APPROVED_STATES]),
-        gte(estimateLines.approvedAt, bounds.fromIso),
-        lt(estimateLines.approvedAt, bounds.toIso),
-      ),
-    );
-  return Number(row?.total ?? 0);
+  const bounds = { fy, fromIso: startOfDayIso(fy.startDate, timeZone), toIso: startOfDayIso(addDays(fy.endDate, 1), timeZone) };
+  lastFiscalYear.set(key, bounds);
+  return bounds;
 }

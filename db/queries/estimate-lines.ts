@@ -1,4 +1,4 @@
-import { and, eq, inArray, isNull, ne, sql } from "drizzle-orm";
+import { and, eq, ne, sql } from "drizzle-orm";
 import { writeTx, writeTxThen, type InSameTx, type Reader, type Tx } from "@/db/client";
 import { concerns, estimateLines, statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -8,8 +8,8 @@ import { nowIso } from "@/lib/ids";
 import { formatCents } from "@/lib/money";
 import type { EditLineInput, NewLineInput } from "@/lib/validation/estimate-line";
 import { recordAudit } from "./audit";
+import { moveBudgetUse } from "./budget-use";
 import { loadEstimateContext, toAccountSettings, toEstimateLine, type EstimateContext } from "./estimate-context";
-import { scopedTo } from "./scope";
 import { planStops, settleTimeBoxes, type TimeBoxNoticeDue } from "./time-box-stops";
 
 export function assertOpen(ctx: EstimateContext): void {
@@ -38,14 +38,7 @@ function lineFields(input: NewLineInput | EditLineInput) {
 
 /** The line and its work order's context, scoped; another account's line is not found. */
 export async function loadLineContext(tx: Tx, user: SessionUser, lineId: string) {
-  const [ref] = await tx
-    .select({ workOrderId: estimateLines.workOrderId })
-    .from(estimateLines)
-    .innerJoin(workOrders, eq(workOrders.id, estimateLines.workOrderId))
-    .where(and(eq(estimateLines.id, lineId), scopedTo(workOrders.accountId, user)))
-    .limit(1);
-  if (!ref) throw notFound("That line");
-  const ctx = await loadEstimateContext(tx, user, ref.workOrderId);
+  const ctx = await loadEstimateContext(tx, user, { lineId });
   const line = ctx.lines.find((l) => l.id === lineId)!;
   return { ctx, line };
 }
@@ -129,6 +122,8 @@ export async function editLine(user: SessionUser, input: EditLineInput, notify?:
       })
       .where(eq(estimateLines.id, line.id))
       .returning();
+    // A line back for approval no longer counts toward the budget (an approval that holds keeps its amount and instant).
+    await moveBudgetUse(tx, ctx.wo.accountId, [{ before: line, after: row! }]);
     if (back) {
       await tx.insert(statusEvents).values({
         workOrderId: ctx.wo.id,
@@ -203,6 +198,13 @@ export async function moveLine(user: SessionUser, lineId: string, direction: "up
   });
 }
 
+/**
+ * A held or declined line no later visit has brought back. A literal, the partial index's own
+ * condition (estimate_lines_deferred_idx): a bound parameter would keep the planner off it, and it
+ * would walk every held line the shop ever wrote.
+ */
+export const isDeferredLine = sql`${estimateLines.state} in ('held', 'declined') and ${estimateLines.broughtBackAt} is null`;
+
 /** Held and declined lines of the unit's earlier visits that no later visit has brought back. */
 export async function deferredLinesForUnit(tx: Reader, unitId: string, exceptWorkOrderId: string) {
   return tx
@@ -213,8 +215,7 @@ export async function deferredLinesForUnit(tx: Reader, unitId: string, exceptWor
       and(
         eq(workOrders.unitId, unitId),
         ne(workOrders.id, exceptWorkOrderId),
-        inArray(estimateLines.state, ["held", "declined"]),
-        isNull(estimateLines.broughtBackAt),
+        isDeferredLine,
       ),
     )
     .orderBy(sql`${estimateLines.updatedAt} desc`);

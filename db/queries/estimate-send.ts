@@ -1,22 +1,26 @@
 import { eq } from "drizzle-orm";
-import { writeTx, writeTxThen, type InSameTx } from "@/db/client";
+import { writeTxThen, type InSameTx } from "@/db/client";
 import { estimateLines, statusEvents, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { workOrderLabel } from "@/lib/domain";
 import { applyStandingAuthorisation } from "@/lib/estimate";
-import { conflict, notFound } from "@/lib/http/problem";
+import { conflict } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
-import { formatCents } from "@/lib/money";
+import { formatCents, lineAmountCents } from "@/lib/money";
 import { recordAudit } from "./audit";
-import { writeLineChanges } from "./decisions";
-import { budgetUsedCents, currentFiscalYear, loadEstimateContext, toAccountSettings, toEstimateLine, toShopSettings } from "./estimate-context";
+import { loadEstimateContext, type EstimateContext } from "./estimate-context";
+import { applyLineChanges, type AppliedChanges } from "./line-changes";
 import { assertOpen } from "./estimate-lines";
+
+export interface EstimateSent {
+  wo: EstimateContext["wo"] & { unitNumber: string; pendingCents: number };
+  sentCount: number;
+}
 
 /**
  * Sends the draft lines to the fleet: they become "waiting on decision", the
  * work order moves to Waiting on approval, and the timeline says so.
  */
-export async function sendEstimate(user: SessionUser, workOrderId: string, notify?: InSameTx<{ sentCount: number }>) {
+export async function sendEstimate(user: SessionUser, workOrderId: string, notify?: InSameTx<EstimateSent>) {
   return writeTxThen(async (tx) => {
     const ctx = await loadEstimateContext(tx, user, workOrderId);
     assertOpen(ctx);
@@ -38,47 +42,35 @@ export async function sendEstimate(user: SessionUser, workOrderId: string, notif
       at,
     });
     await recordAudit(tx, user, { action: "estimate.sent", entityType: "work_order", entityId: ctx.wo.id, accountId: ctx.wo.accountId, detail: { lineIds: drafts.map((l) => l.id) } });
-    return { wo: ctx.wo, sentCount: drafts.length };
+    // What the approvers' e-mail says, from the lines as they now stand.
+    const pendingCents = ctx.lines.filter((l) => l.state === "draft" || l.state === "proposed").reduce((sum, l) => sum + lineAmountCents(l.quantityMilli, l.unitPriceCents), 0);
+    return { wo: { ...ctx.wo, unitNumber: ctx.unitNumber, pendingCents }, sentCount: drafts.length };
   }, notify);
 }
 
 /**
  * Starts draft or proposed lines under the account's standing authorisation:
  * recorded as approved by the standing authorisation, all or none, within its
- * amount per work order and the repair budget.
+ * amount per work order and the repair budget (the same step and 409 body as an
+ * approver's decisions).
  */
-export async function startUnderStanding(user: SessionUser, workOrderId: string, lineIds: string[]) {
-  return writeTx(async (tx) => {
+export async function startUnderStanding(user: SessionUser, workOrderId: string, lineIds: string[], notify?: InSameTx<AppliedChanges>) {
+  const applied = await writeTxThen(async (tx) => {
     const ctx = await loadEstimateContext(tx, user, workOrderId);
     assertOpen(ctx);
-    const bounds = currentFiscalYear(ctx.account);
-    const lines = ctx.lines.map(toEstimateLine);
-    const result = applyStandingAuthorisation({
-      workOrderNumber: workOrderLabel(ctx.wo.number),
-      lines,
-      shop: toShopSettings(ctx.shop),
-      account: toAccountSettings(ctx.account),
-      budgetUsedCents: await budgetUsedCents(tx, ctx.account.id, bounds),
-      fiscalYear: bounds.fy,
-      start: lineIds.map((lineId) => ({ lineId, expectedVersion: lines.find((l) => l.id === lineId)?.version ?? 0 })),
-      note: `Started by ${user.name} under the standing authorisation`,
+    return applyLineChanges(tx, user, ctx, {
+      check: (limits) =>
+        applyStandingAuthorisation({
+          ...limits,
+          start: lineIds.map((lineId) => ({ lineId, expectedVersion: limits.lines.find((l) => l.id === lineId)?.version ?? 0 })),
+          note: `Started by ${user.name} under the standing authorisation`,
+        }),
+      timelineNote: ({ changes }) => {
+        const total = changes.reduce((s, c) => s + c.record.amountCents, 0);
+        return `Started ${changes.length} line${changes.length === 1 ? "" : "s"} (${formatCents(total)}) under your standing authorisation of ${formatCents(ctx.account.standingAuthorisationCents)}.`;
+      },
+      audit: () => ({ action: "estimate.standing", detail: { lineIds } }),
     });
-    if (!result.ok) {
-      if (result.code === "not_found") throw notFound("That line");
-      throw conflict(result.code, result.detail.charAt(0).toUpperCase() + result.detail.slice(1), { lineId: result.lineId });
-    }
-    const at = nowIso();
-    await writeLineChanges(tx, ctx.wo.id, ctx.account.id, result.changes, at);
-    const total = result.changes.reduce((s, c) => s + c.record.amountCents, 0);
-    await tx.insert(statusEvents).values({
-      workOrderId: ctx.wo.id,
-      status: ctx.wo.status,
-      note: `Started ${result.changes.length} line${result.changes.length === 1 ? "" : "s"} (${formatCents(total)}) under your standing authorisation of ${formatCents(ctx.account.standingAuthorisationCents)}.`,
-      byUserId: user.id,
-      at,
-    });
-    await tx.update(workOrders).set({ updatedAt: at }).where(eq(workOrders.id, ctx.wo.id));
-    await recordAudit(tx, user, { action: "estimate.standing", entityType: "work_order", entityId: ctx.wo.id, accountId: ctx.account.id, detail: { lineIds } });
-    return result.changes.length;
-  });
+  }, notify);
+  return applied.result.changes.length;
 }

@@ -36,8 +36,6 @@ export async function findConcern(user: SessionUser, concernId: string) {
   return row ?? null;
 }
 
-export type ConcernDetail = NonNullable<Awaited<ReturnType<typeof findConcern>>>;
-
 /** The concern, scoped to the caller's account (another account's is not found), refused once closed. */
 async function openConcernForWrite(tx: Tx, user: SessionUser, concernId: string, closedMessage: string) {
   const [c] = await tx
@@ -141,8 +139,6 @@ export async function watchedConcerns(user: SessionUser, opts: { unitId?: string
   });
   return { open: withStats.filter((r) => !r.closedAt), closed: withStats.filter((r) => r.closedAt) };
 }
-
-export type WatchedConcern = Awaited<ReturnType<typeof watchedConcerns>>["open"][number];
 
 /** Who is working on the unit now: the open visit's technician, for the shop's concern page. */
 export async function openVisitOf(unitId: string) {

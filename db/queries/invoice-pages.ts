@@ -60,8 +60,6 @@ export async function invoiceSection(user: SessionUser, workOrderId: string) {
   };
 }
 
-export type InvoiceSectionData = NonNullable<Awaited<ReturnType<typeof invoiceSection>>>;
-
 /** Work orders with finished work and no live invoice: the shop's "ready to invoice" list. */
 export async function readyToInvoice(user: SessionUser) {
   const rows = await getDb()

@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, gt, lt, or, sql, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, gt, lt, lte, ne, or, sql, type SQL } from "drizzle-orm";
 import { getDb, type Reader } from "@/db/client";
 import { accounts, creditNotes, invoiceLines, invoices, payments, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -65,10 +65,19 @@ function listQuery(where: SQL | undefined) {
     .where(where);
 }
 
+/** Open invoices with a balance, nothing paid yet or part paid (paymentStateOf, in SQL so a page holds only those). */
+function owingWith(state: "open" | "partly_paid"): SQL | undefined {
+  return and(
+    eq(invoices.status, "open"),
+    gt(sql`${invoices.totalCents} - ${invoices.paidCents} - ${invoices.creditedCents}`, 0),
+    state === "open" ? eq(invoices.paidCents, 0) : gt(invoices.paidCents, 0),
+  );
+}
+
 /** Invoices the caller may see, newest number first (GET /api/v1/invoices, the invoice lists). */
 export async function listInvoices(
   user: SessionUser,
-  opts: PageQuery & { status?: InvoiceStatus; accountId?: string; workOrderId?: string },
+  opts: PageQuery & { status?: InvoiceStatus; accountId?: string; workOrderId?: string; paymentState?: "open" | "partly_paid"; settled?: boolean },
 ): Promise<{ invoices: InvoiceListItem[]; nextCursor: string | null }> {
   const after = decodeCursor(opts.cursor, 1);
   if (opts.cursor && !after) throw invalidInput([{ path: "cursor", message: "Not a cursor this API issued." }]);
@@ -78,6 +87,9 @@ export async function listInvoices(
       opts.status ? eq(invoices.status, opts.status) : undefined,
       opts.accountId ? eq(invoices.accountId, opts.accountId) : undefined,
       opts.workOrderId ? eq(invoices.workOrderId, opts.workOrderId) : undefined,
+      opts.paymentState ? owingWith(opts.paymentState) : undefined,
+      // Paid or void: nothing left to pay (the complement of openInvoices).
+      opts.settled ? or(ne(invoices.status, "open"), lte(sql`${invoices.totalCents} - ${invoices.paidCents} - ${invoices.creditedCents}`, 0)) : undefined,
       after ? lt(invoices.number, Number(after[0])) : undefined,
     ),
   )

@@ -12,13 +12,17 @@ export async function accountRecipients(accountId: string, roles: readonly Fleet
   return rows.map((r) => r.email);
 }
 
-/** E-mail addresses of the shop's active staff in the given roles. */
-export async function shopRecipients(roles: readonly ShopRole[], db: Reader = getDb()): Promise<string[]> {
-  const rows = await db
-    .select({ email: users.email })
+/** The shop's active staff in the given roles, with their ids. */
+export async function shopPeople(roles: readonly ShopRole[], db: Reader = getDb()): Promise<{ id: string; email: string }[]> {
+  return db
+    .select({ id: users.id, email: users.email })
     .from(users)
     .where(and(isNull(users.accountId), inArray(users.role, [...roles]), eq(users.active, true)));
-  return rows.map((r) => r.email);
+}
+
+/** E-mail addresses of the shop's active staff in the given roles. */
+export async function shopRecipients(roles: readonly ShopRole[], db: Reader = getDb()): Promise<string[]> {
+  return (await shopPeople(roles, db)).map((r) => r.email);
 }
 
 export async function userEmail(userId: string | null, db: Reader = getDb()): Promise<string[]> {

@@ -5,10 +5,10 @@ import type { SessionUser } from "@/lib/auth/session-user";
 import { workOrderLabel, type ServiceRequestStatus } from "@/lib/domain";
 import { conflict, invalidInput, notFound } from "@/lib/http/problem";
 import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
+import { photoUrls } from "@/lib/uploads/photo-urls";
 import type { ServiceRequestInput } from "@/lib/validation/service-request";
 import { recordAudit } from "./audit";
 import { scopedTo } from "./scope";
-import { photoUrls } from "./work-order-detail";
 
 /**
  * Files a defect report on one of the caller's units (the shop may file one

@@ -9,6 +9,7 @@ import { conflict, forbidden, invalidInput, notFound } from "@/lib/http/problem"
 import { nowIso } from "@/lib/ids";
 import { formatCents, lineAmountCents } from "@/lib/money";
 import type { StatusMoveInput } from "@/lib/validation/status";
+import { workOrderOut } from "@/lib/records/work-order";
 import { recordAudit } from "./audit";
 import { findWorkOrder } from "./work-order-detail";
 
@@ -65,15 +66,8 @@ export async function moveStatus(user: SessionUser, workOrderId: string, move: S
     });
     return {
       workOrder: {
-        id: wo.id,
-        number: wo.number,
-        unitId: wo.unitId,
-        accountId: wo.accountId,
-        status: move.status,
-        title: wo.title,
-        promisedAt: wo.promisedAt,
+        ...workOrderOut({ ...wo, status: move.status, updatedAt: at }),
         releasedAt: released ? at : wo.releasedAt,
-        updatedAt: at,
         lastNote: move.note,
         event: { ...event, by: user.name },
       },

@@ -19,7 +19,7 @@ import { toEstimateLine } from "./estimate-context";
  * instant it stops by itself (stop_at); every read counts it only up to then, so the truth shows
  * even when nobody is watching. Writes call settleTimeBoxes first (closing clocks whose time has
  * come, and saying which notices are due), and re-plan stop times whenever the box or its clocks
- * change. The watcher (lib/notifications/time-box-watch.ts) does the same on a timer.
+ * change. The watcher (lib/server/notifications/time-box-watch.ts) does the same on a timer.
  */
 
 export function spanOf(entry: Pick<TimeEntry, "startedAt" | "endedAt" | "stopAt">): ClockSpan {

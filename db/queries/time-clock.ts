@@ -103,11 +103,6 @@ export async function clockOut(user: SessionUser, lineId: string, notify?: InSam
   }, notify);
 }
 
-/** Thousandths of an hour clocked on a line's box, counting running clocks up to `at` (and no further than their stop). */
-export async function clockedMilli(tx: Tx, lineId: string, at: string): Promise<number> {
-  return clockOfGroup(await loadBoxGroup(tx, lineId), Date.parse(at)).usedMilli;
-}
-
 export interface LineTime {
   spans: { techId: string; startMs: number; endMs: number | null; stopAtMs: number | null }[];
 }

@@ -1,9 +1,10 @@
-import { aliasedTable, and, asc, desc, eq, gt, inArray, isNotNull, isNull, ne, or, sql } from "drizzle-orm";
+import { aliasedTable, and, asc, desc, eq, getTableColumns, gt, isNotNull, isNull, lt, ne, or, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { accounts, estimateLines, meterReadings, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { invalidInput } from "@/lib/http/problem";
 import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
+import { isDeferredLine } from "./estimate-lines";
 import { scopedTo } from "./scope";
 
 const openWo = aliasedTable(workOrders, "open_wo");
@@ -104,8 +105,15 @@ function maxIso(a: string, b: string | null): string {
   return b && b > a ? b : a;
 }
 
-export async function getUnitDetail(user: SessionUser, id: string) {
+/**
+ * One unit with its readings, visits and deferred work. Pages pass `visits` and
+ * get one page of visits, newest first, with the cursor of the next (the open
+ * visit is read on its own); without it every visit comes back (GET /api/v1/units/:id).
+ */
+export async function getUnitDetail(user: SessionUser, id: string, opts: { visits?: PageQuery } = {}) {
   const db = getDb();
+  const after = opts.visits ? decodeCursor(opts.visits.cursor, 2) : null;
+  if (opts.visits?.cursor && !after) throw invalidInput([{ path: "cursor", message: "Not a cursor this API issued." }]);
   const [unit] = await db
     .select({
       id: units.id,
@@ -131,7 +139,7 @@ export async function getUnitDetail(user: SessionUser, id: string) {
     .limit(1);
   if (!unit) return null;
 
-  const [readings, history] = await Promise.all([
+  const [readings, visitRows, [openRow]] = await Promise.all([
     db
       .select({
         id: meterReadings.id,
@@ -158,34 +166,39 @@ export async function getUnitDetail(user: SessionUser, id: string) {
       })
       .from(workOrders)
       .leftJoin(users, eq(users.id, workOrders.assignedTechId))
-      .where(eq(workOrders.unitId, id))
-      .orderBy(desc(workOrders.openedAt)),
+      .where(
+        and(
+          eq(workOrders.unitId, id),
+          after
+            ? or(lt(workOrders.openedAt, String(after[0])), and(eq(workOrders.openedAt, String(after[0])), lt(workOrders.id, String(after[1]))))
+            : undefined,
+        ),
+      )
+      .orderBy(desc(workOrders.openedAt), desc(workOrders.id))
+      .limit(opts.visits ? opts.visits.limit + 1 : -1),
+    // At most one open visit per unit (work_orders_one_open_per_unit): read on its own, whatever page is shown.
+    db
+      .select({ id: workOrders.id, number: workOrders.number, status: workOrders.status, title: workOrders.title })
+      .from(workOrders)
+      .where(and(eq(workOrders.unitId, id), sql`${workOrders.status} <> 'released'`))
+      .limit(1),
   ]);
+  const { page: history, nextCursor } = opts.visits
+    ? paginate(visitRows, opts.visits.limit, (r) => [r.openedAt, r.id])
+    : { page: visitRows, nextCursor: null };
 
+  // Every column: the API answers each deferred line in the one estimate-line shape.
   const deferred = await db
-    .select({
-      id: estimateLines.id,
-      workOrderId: estimateLines.workOrderId,
-      kind: estimateLines.kind,
-      description: estimateLines.description,
-      quantityMilli: estimateLines.quantityMilli,
-      unitPriceCents: estimateLines.unitPriceCents,
-      state: estimateLines.state,
-      updatedAt: estimateLines.updatedAt,
-    })
+    .select(getTableColumns(estimateLines))
     .from(estimateLines)
+    .innerJoin(workOrders, eq(workOrders.id, estimateLines.workOrderId))
     .where(
       and(
-        inArray(
-          estimateLines.workOrderId,
-          history.map((h) => h.id),
-        ),
-        inArray(estimateLines.state, ["held", "declined"]),
-        sql`${estimateLines.broughtBackAt} is null`,
+        eq(workOrders.unitId, id),
+        isDeferredLine,
       ),
     )
     .orderBy(desc(estimateLines.updatedAt));
 
-  const open = history.find((h) => h.status !== "released") ?? null;
-  return { unit, openWorkOrder: open, readings, history, deferred };
+  return { unit, openWorkOrder: openRow ?? null, readings, history, historyNextCursor: nextCursor, deferred };
 }

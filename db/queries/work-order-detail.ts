@@ -1,14 +1,11 @@
-import { and, asc, desc, eq, inArray } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNotNull } from "drizzle-orm";
 import { getDb, type Reader } from "@/db/client";
-import { accounts, concerns, decisions, estimateLines, findingReadings, findings, photos, statusEvents, units, users, workOrders } from "@/db/schema";
+import { accounts, concerns, decisions, findingReadings, findings, photos, statusEvents, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { SEVERITIES } from "@/lib/domain";
+import { photoUrls } from "@/lib/uploads/photo-urls";
 import { scopedTo } from "./scope";
 import { clockedTechNameSql } from "./time-clock";
-
-export function photoUrls(photoId: string) {
-  return { url: `/api/v1/photos/${photoId}`, thumbUrl: `/api/v1/photos/${photoId}/thumb` };
-}
 
 /** The work order's header row, scoped: null for an id that does not exist or belongs to another account. */
 export async function findWorkOrder(user: SessionUser, id: string, db: Reader = getDb()) {
@@ -94,7 +91,8 @@ export async function loadFindings(workOrderId: string) {
         db
           .select({ id: photos.id, findingId: photos.findingId, name: photos.name, width: photos.width, height: photos.height })
           .from(photos)
-          .where(inArray(photos.findingId, ids))
+          // By the work order (a finding's photos are attached on its visit): one ordered index range.
+          .where(and(eq(photos.workOrderId, workOrderId), isNotNull(photos.findingId)))
           .orderBy(asc(photos.createdAt)),
         db.select().from(findingReadings).where(inArray(findingReadings.findingId, ids)).orderBy(asc(findingReadings.position)),
       ])
@@ -124,10 +122,6 @@ export async function loadFindings(workOrderId: string) {
 }
 
 export type FindingView = Awaited<ReturnType<typeof loadFindings>>[number];
-
-export async function loadLines(workOrderId: string) {
-  return getDb().select().from(estimateLines).where(eq(estimateLines.workOrderId, workOrderId)).orderBy(asc(estimateLines.position), asc(estimateLines.createdAt));
-}
 
 /** The latest decision on each line, with who made it. */
 export async function loadLatestDecisions(workOrderId: string) {

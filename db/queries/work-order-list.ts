@@ -1,12 +1,13 @@
-import { and, desc, eq, gte, lt, ne, sql } from "drizzle-orm";
+import { and, count, desc, eq, gte, lt, sql } from "drizzle-orm";
 import { getDb } from "@/db/client";
 import { accounts, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { workOrderLabel, type WorkOrderStatus } from "@/lib/domain";
+import { OPEN_STATUSES, type WorkOrderStatus } from "@/lib/domain";
 import { invalidInput } from "@/lib/http/problem";
 import { addDays, startOfDayIso } from "@/lib/dates";
 import { env } from "@/lib/env";
-import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
+import { decodeCursor, PAGE_SIZE, paginate, type PageQuery } from "@/lib/http/pagination";
+import { workOrderOut } from "@/lib/records/work-order";
 import { scopedTo } from "./scope";
 import { clockedTechNameSql } from "./time-clock";
 
@@ -44,6 +45,10 @@ export interface WorkOrderFilters {
   openedFrom?: string;
   openedTo?: string;
 }
+
+// A literal, not a bound parameter: only then can SQLite use the partial indexes on open work
+// (work_orders_open_*), so the list reads the open visits and never walks the released ones.
+const stillOpen = sql`${workOrders.status} <> 'released'`;
 
 /**
  * Work orders the caller may see, newest number first: by default the open
@@ -86,7 +91,7 @@ export async function listOpenWorkOrders(
     .where(
       and(
         scopedTo(workOrders.accountId, user),
-        opts.status ? eq(workOrders.status, opts.status) : opts.all ? undefined : ne(workOrders.status, "released"),
+        opts.status ? eq(workOrders.status, opts.status) : opts.all ? undefined : stillOpen,
         opts.technicianId ? eq(workOrders.assignedTechId, opts.technicianId) : undefined,
         opts.accountId ? eq(workOrders.accountId, opts.accountId) : undefined,
         opts.openedFrom ? gte(workOrders.openedAt, startOfDayIso(opts.openedFrom, zone)) : undefined,
@@ -99,7 +104,62 @@ export async function listOpenWorkOrders(
 
   const { page, nextCursor } = paginate(rows, opts.limit, (r) => [r.number]);
   return {
-    workOrders: page.map((r) => ({ ...r, outOfService: Boolean(r.outOfService), label: workOrderLabel(r.number) })),
+    workOrders: page.map((r) => ({ ...r, ...workOrderOut(r), outOfService: Boolean(r.outOfService) })),
     nextCursor,
   };
 }
+
+/** What a card on the Floor shows of a work order. */
+export type FloorCard = Pick<
+  WorkOrderListItem,
+  "id" | "label" | "status" | "unitNumber" | "unitDescription" | "accountName" | "title" | "promisedAt" | "technicianName" | "clockedTechName" | "lastNote" | "outOfService"
+>;
+
+function floorCard(w: WorkOrderListItem): FloorCard {
+  return {
+    id: w.id,
+    label: w.label,
+    status: w.status,
+    unitNumber: w.unitNumber,
+    unitDescription: w.unitDescription,
+    accountName: w.accountName,
+    title: w.title,
+    promisedAt: w.promisedAt,
+    technicianName: w.technicianName,
+    clockedTechName: w.clockedTechName,
+    lastNote: w.lastNote,
+    outOfService: w.outOfService,
+  };
+}
+
+export interface FloorLane {
+  status: WorkOrderStatus;
+  /** The newest PAGE_SIZE of the lane; `total` says how many more the full list holds. */
+  workOrders: FloorCard[];
+  total: number;
+}
+
+/**
+ * The Floor: each open status's newest page of work orders and how many it holds, and for a
+ * technician their own open work. Only open visits are read, through the partial indexes,
+ * so the board costs the same after years of released ones.
+ */
+export async function floorLanes(user: SessionUser, opts: { mineFor?: string } = {}) {
+  const [lanes, counts, mine] = await Promise.all([
+    Promise.all(OPEN_STATUSES.map((status) => listOpenWorkOrders(user, { status, limit: PAGE_SIZE }))),
+    getDb()
+      .select({ status: workOrders.status, n: count() })
+      .from(workOrders)
+      .where(and(scopedTo(workOrders.accountId, user), stillOpen))
+      .groupBy(workOrders.status),
+    opts.mineFor ? listOpenWorkOrders(user, { technicianId: opts.mineFor, limit: PAGE_SIZE }) : null,
+  ]);
+  const totalOf = new Map(counts.map((c) => [c.status, c.n]));
+  return {
+    lanes: OPEN_STATUSES.map((status, i): FloorLane => ({ status, workOrders: lanes[i]!.workOrders.map(floorCard), total: totalOf.get(status) ?? 0 })),
+    total: counts.reduce((sum, c) => sum + c.n, 0),
+    mine: mine ? { workOrders: mine.workOrders.map(floorCard), more: mine.nextCursor !== null } : null,
+  };
+}
+
+export type FloorData = Awaited<ReturnType<typeof floorLanes>>;

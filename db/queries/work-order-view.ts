@@ -2,8 +2,10 @@ import { getDb } from "@/db/client";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { isStaff } from "@/lib/auth/policy";
 import { limitsView, priceEstimate } from "@/lib/estimate";
-import { lineAmountCents } from "@/lib/money";
-import { budgetUsedCents, currentFiscalYear, loadEstimateContext, toAccountSettings, toEstimateLine, toShopSettings } from "./estimate-context";
+import { decidedBy, lineOut } from "@/lib/records/estimate-line";
+import { workOrderOut } from "@/lib/records/work-order";
+import { budgetUsedCents } from "./budget-use";
+import { currentFiscalYear, loadEstimateContext, toAccountSettings, toEstimateLine, toShopSettings } from "./estimate-context";
 import { findWorkOrder, loadConcerns, loadFindings, loadLatestDecisions, loadTimeline } from "./work-order-detail";
 
 /**
@@ -29,19 +31,10 @@ export async function workOrderView(user: SessionUser, id: string) {
   const estimateLines = rows.map(toEstimateLine);
   const account = toAccountSettings(ctx.account);
   const pricing = priceEstimate(estimateLines, toShopSettings(ctx.shop), account);
-  const amountOf = new Map(pricing.lines.map((p) => [p.id, p]));
   const caller = user.role === "approver" ? { id: user.id, signingLimitCents: user.signingLimitCents ?? 0 } : null;
 
   return {
-    id: wo.id,
-    number: wo.number,
-    label: `W-${wo.number}`,
-    unitId: wo.unitId,
-    accountId: wo.accountId,
-    status: wo.status,
-    promisedAt: wo.promisedAt,
-    updatedAt: wo.updatedAt,
-    title: wo.title,
+    ...workOrderOut(wo),
     poNumber: wo.poNumber,
     unitNumber: wo.unitNumber,
     unitDescription: wo.unitDescription,
@@ -54,32 +47,7 @@ export async function workOrderView(user: SessionUser, id: string) {
     findings: findings.map((f) => ({ ...f, photos: f.photos })),
     lines: rows.map((l) => {
       const d = decisions.latest.get(l.id);
-      return {
-        id: l.id,
-        kind: l.kind,
-        description: l.description,
-        quantity: l.quantityMilli / 1000,
-        unitPriceCents: l.unitPriceCents,
-        amountCents: amountOf.get(l.id)?.amountCents ?? 0,
-        taxable: l.taxable,
-        coreChargeCents: l.coreChargeCents,
-        // What the core costs if it does not come back (shown even once it has).
-        coreTotalCents: lineAmountCents(l.quantityMilli, l.coreChargeCents),
-        coreReturnedAt: l.coreReturnedAt,
-        state: l.state,
-        version: l.version,
-        findingId: l.findingId,
-        concernId: l.concernId,
-        partNumber: l.partNumber,
-        isDiagnosis: l.isDiagnosis,
-        byStanding: l.byStanding,
-        reopenReason: l.reopenReason,
-        deferredFromLineId: l.deferredFromLineId,
-        extendsLineId: l.extendsLineId,
-        decision: d
-          ? { by: d.byStanding ? "Standing authorisation" : (d.by ?? "Unknown"), at: d.at, decision: d.decision, amountCents: d.amountCents, note: d.note, lineVersion: d.lineVersion }
-          : null,
-      };
+      return lineOut(l, d ? { by: decidedBy(d), at: d.at, decision: d.decision, amountCents: d.amountCents, note: d.note, lineVersion: d.lineVersion } : null);
     }),
     totals: pricing.totals,
     estimateTotals: {
@@ -95,7 +63,7 @@ export async function workOrderView(user: SessionUser, id: string) {
     decisionLog: decisions.all.map((d) => ({
       lineId: d.lineId,
       decision: d.decision,
-      by: d.byStanding ? "Standing authorisation" : (d.by ?? "Unknown"),
+      by: decidedBy(d),
       at: d.at,
       amountCents: d.amountCents,
       lineVersion: d.lineVersion,

@@ -1,7 +1,7 @@
 import sharp from "sharp";
 import { UTApi, UTFile } from "uploadthing/server";
 import { cleanPhoto } from "@/lib/uploads/clean-photo";
-import { utApi } from "@/lib/uploads/ut-api";
+import { uploadThingConfig } from "@/lib/uploads/config";
 import { startFakeUploadThing } from "@/mocks/uploadthing/server";
 import { fakeStorageDir } from "@/mocks/uploadthing/storage-dir";
 import { DEMO_DRAWINGS, type DemoDrawing } from "./demo-drawings";
@@ -26,7 +26,8 @@ export type DemoPhotos = Map<DemoDrawing, StoredDemoPhoto>;
  * fake serves from, because the seed runs before `npm run mocks` starts.
  */
 export async function storeDemoPhotos(): Promise<DemoPhotos> {
-  if (process.env.UPLOADTHING_TOKEN) return uploadAll(utApi());
+  // A script, not the server: it builds its own SDK client from the same settings the app uses.
+  if (process.env.UPLOADTHING_TOKEN) return uploadAll(new UTApi({ token: uploadThingConfig().token, logLevel: "Error" }));
   const fake = await startFakeUploadThing({ port: 0, storageDir: fakeStorageDir(), onWarning: () => undefined });
   try {
     return await uploadAll(new UTApi({ token: fake.token, apiUrl: fake.url, ingestUrl: fake.url, logLevel: "Error" }));

@@ -1,5 +1,6 @@
 import { eq as eqSql } from "drizzle-orm";
-import { budgetUsedCents, currentFiscalYear } from "@/db/queries/estimate-context";
+import { recountBudgetUsed } from "@/db/queries/budget-use";
+import { currentFiscalYear } from "@/db/queries/estimate-context";
 import { accounts, decisions, estimateLines, timeEntries, workOrders } from "@/db/schema";
 import type { Decision, LineKind, LineState } from "@/lib/domain";
 import { lineAmountCents } from "@/lib/money";
@@ -203,7 +204,7 @@ async function insertLines(ctx: SeedContext, woKey: string, lines: LineSeed[]): 
 async function tightenSchoolBudget(ctx: SeedContext): Promise<void> {
   const accountId = id(ctx, "account:schools");
   // The same count the decision path uses, so the refusal really shows.
-  const used = await budgetUsedCents(ctx.db, accountId, currentFiscalYear({ fiscalYearStartMonth: 7 }, ctx.now));
+  const used = await recountBudgetUsed(ctx.db, accountId, currentFiscalYear({ fiscalYearStartMonth: 7 }, ctx.now));
   const budget = Math.ceil((used + 110_000) / 50_000) * 50_000;
   await ctx.db.update(accounts).set({ repairBudgetCents: budget }).where(eqSql(accounts.id, accountId));
 }

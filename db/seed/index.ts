@@ -1,4 +1,5 @@
 import { openDatabase } from "@/db/client";
+import { rebuildBudgetUse } from "@/db/queries/budget-use";
 import { shopSettings } from "@/db/schema";
 import { seedAccounts } from "./accounts";
 import { seedEstimates } from "./estimates";
@@ -37,6 +38,7 @@ export async function seedDatabase(
       await seedFindings(ctx, demoPhotos);
       await seedEstimates(ctx);
       await seedOccurrences(ctx);
+      await rebuildBudgetUse(tx, ctx.now);
     });
     return { seeded: true as const };
   } finally {

@@ -9,3 +9,4 @@ export * from "./decide";
 export * from "./standing";
 export * from "./revise";
 export * from "./approve-fit";
+export * from "./describe-decisions";

@@ -1,8 +1,11 @@
 import { z } from "zod";
 
+/** The API's page size (api-v1.md): pages in the UI show as many rows. */
+export const PAGE_SIZE = 50;
+
 /** ?limit= (default 50, max 200) and ?cursor= as api-v1.md fixes them. */
 export const pageQuery = z.object({
-  limit: z.coerce.number().int().min(1).max(200).default(50),
+  limit: z.coerce.number().int().min(1).max(200).default(PAGE_SIZE),
   cursor: z.string().max(500).optional(),
 });
 

@@ -5,8 +5,6 @@
  */
 export type TemperatureUnit = "F" | "C";
 
-export const TEMPERATURE_UNITS: readonly TemperatureUnit[] = ["F", "C"];
-
 export function fahrenheitFromCelsius(celsius: number): number {
   return (celsius * 9) / 5 + 32;
 }

@@ -1,9 +1,6 @@
 import { ReadingInputError, formatNumber, requireNumber, toUnits, verdictForMinimum } from "./exact";
 import type { ReadingResult, TreadDepthInput } from "./types";
 
-/** 1 in = 25.4 mm exactly, so 1/32 in = 0.79375 mm = 79375/100000 mm. */
-export const MM_PER_THIRTY_SECOND = 0.79375;
-
 /** Minimum depth in a major tread groove, in 32nds of an inch (49 CFR 393.75(b), (c)). */
 export const TREAD_MINIMUM_32NDS = { steer: 4, other: 2 } as const;
 

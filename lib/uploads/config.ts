@@ -1,4 +1,4 @@
-import { fakeUploadThingEnv, makeFakeToken } from "@/mocks/uploadthing/token";
+import { fakeUploadThingEnv, makeFakeToken } from "@/lib/uploads/fake-token";
 import { env } from "@/lib/env";
 
 /** What the UploadThing SDK is told: the real service's token, or the local fake's token and addresses. */

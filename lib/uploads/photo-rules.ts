@@ -12,8 +12,6 @@ export const PHOTOS_PER_FINDING = 8;
 
 export type PhotoKind = "jpeg" | "png" | "webp" | "heic";
 
-export const PHOTO_KIND_LABELS: Record<PhotoKind, string> = { jpeg: "JPEG", png: "PNG", webp: "WebP", heic: "HEIC" };
-
 const TYPES: Record<string, PhotoKind> = {
   "image/jpeg": "jpeg",
   "image/jpg": "jpeg",

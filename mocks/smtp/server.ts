@@ -5,6 +5,8 @@ import { SMTPServer } from "smtp-server";
 
 export interface CaughtMail {
   id: string;
+  /** The SMTP user name the sender signed in with, if any: one catcher can keep many senders' mail apart. */
+  mailbox: string;
   receivedAt: string;
   envelopeFrom: string;
   envelopeTo: string[];
@@ -27,9 +29,11 @@ export interface FakeSmtp {
 }
 
 /**
- * A local SMTP catcher: accepts every message the app sends (no auth, no
- * TLS, loopback only), keeps it in memory, and shows it over a small HTTP API
- * (GET /messages, DELETE /messages) that the owner's caught-mail page reads.
+ * A local SMTP catcher: accepts every message the app sends (any user name and
+ * password or none, no TLS, loopback only), keeps it in memory, and shows it
+ * over a small HTTP API (GET /messages, DELETE /messages) that the owner's
+ * caught-mail page reads. `?mailbox=name` narrows both to the mail sent by one
+ * SMTP user name, so one catcher serves a whole test run of parallel files.
  */
 export async function startFakeSmtp(options: { smtpPort?: number; httpPort?: number; keep?: number } = {}): Promise<FakeSmtp> {
   const messages: CaughtMail[] = [];
@@ -39,6 +43,11 @@ export async function startFakeSmtp(options: { smtpPort?: number; httpPort?: num
 
   const smtp = new SMTPServer({
     authOptional: true,
+    // Loopback only and never a real secret: the user name just says whose mail it is.
+    allowInsecureAuth: true,
+    onAuth(auth, _session, callback) {
+      callback(null, { user: auth.username ?? "" });
+    },
     disabledCommands: ["STARTTLS"],
     logger: false,
     size: 25 * 1024 * 1024,
@@ -48,6 +57,7 @@ export async function startFakeSmtp(options: { smtpPort?: number; httpPort?: num
           const toField = Array.isArray(parsed.to) ? parsed.to : parsed.to ? [parsed.to] : [];
           const mail: CaughtMail = {
             id: `m${Date.now().toString(36)}${(counter += 1)}`,
+            mailbox: typeof session.user === "string" ? session.user : "",
             receivedAt: new Date().toISOString(),
             envelopeFrom: session.envelope.mailFrom ? session.envelope.mailFrom.address : "",
             envelopeTo: session.envelope.rcptTo.map((r) => r.address),
@@ -73,11 +83,15 @@ export async function startFakeSmtp(options: { smtpPort?: number; httpPort?: num
   });
 
   const http: Server = createServer((req, res) => {
-    if (req.url === "/messages" && req.method === "GET") {
+    const url = new URL(req.url ?? "/", "http://catcher");
+    const mailbox = url.searchParams.get("mailbox");
+    const inBox = (m: CaughtMail) => mailbox === null || m.mailbox === mailbox;
+    if (url.pathname === "/messages" && req.method === "GET") {
       res.writeHead(200, { "content-type": "application/json" });
-      res.end(JSON.stringify({ messages }));
-    } else if (req.url === "/messages" && req.method === "DELETE") {
-      messages.length = 0;
+      res.end(JSON.stringify({ messages: messages.filter(inBox) }));
+    } else if (url.pathname === "/messages" && req.method === "DELETE") {
+      const kept = messages.filter((m) => !inBox(m));
+      messages.splice(0, messages.length, ...kept);
       res.writeHead(204).end();
     } else {
       res.writeHead(404).end();

@@ -8,7 +8,7 @@ import { handleIngest } from "./ingest";
 import { handleCallbackResult, handleRouteMetadata } from "./registration-routes";
 import { Registrations } from "./registrations";
 import { FileStore, isValidKey } from "./store";
-import { DEFAULT_FAKE_API_KEY, DEFAULT_FAKE_APP_ID, fakeUploadThingEnv, makeFakeToken } from "./token";
+import { DEFAULT_FAKE_API_KEY, DEFAULT_FAKE_APP_ID, fakeUploadThingEnv, makeFakeToken } from "@/lib/uploads/fake-token";
 
 export interface FakeUploadThingOptions {
   /** 0 picks a free port. */

@@ -1,14 +1,15 @@
 import { mkdirSync, rmSync } from "node:fs";
 import path from "node:path";
 import type { Browser, BrowserContext, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { migrateDatabase } from "@/db/migrate";
 import { withCheckDigit } from "@/lib/vin";
-import { startFakeSmtp, type CaughtMail, type FakeSmtp } from "@/mocks/smtp/server";
+import type { CaughtMail } from "@/mocks/smtp/server";
+import { mailbox } from "@/tests/support/mailbox";
+import { root, startRunningNextServer, type NextServer } from "@/tests/support/next-server";
 import { startFakeStripe } from "@/mocks/stripe/server";
 import { startFakeUploadThing } from "@/mocks/uploadthing/server";
 import { freePort } from "@/tests/support/ports";
-import { root, startAppServer } from "./app-server";
 import { expectNoSeriousViolations } from "./a11y/axe";
 import { DESKTOP, PHONE, launch, newContext, screenshot } from "./helpers";
 
@@ -21,8 +22,9 @@ import { DESKTOP, PHONE, launch, newContext, screenshot } from "./helpers";
 const ALERT = '[role="alert"]:not(#__next-route-announcer__)';
 
 let browser: Browser;
-let smtp: FakeSmtp;
-let app: { url: string; stop(): void };
+// The run's one mail catcher, in a mailbox of this server's own.
+const smtp = mailbox(inject("mailCatcher"), "first-week");
+let app: NextServer;
 const closers: (() => Promise<unknown>)[] = [];
 const dir = path.join(root, "tests", ".artifacts", "browser-empty");
 
@@ -31,15 +33,17 @@ beforeAll(async () => {
   mkdirSync(dir, { recursive: true });
   const dbUrl = `file:${path.join(dir, "shop.db")}`;
   await migrateDatabase(dbUrl);
-  smtp = await startFakeSmtp({ smtpPort: 0, httpPort: 0 });
   const uploads = await startFakeUploadThing({ port: 0, storageDir: path.join(dir, "uploads") });
   const port = await freePort();
   const payments = await startFakeStripe({ port: 0, webhookUrl: `http://127.0.0.1:${port}/api/webhooks/stripe`, webhookSecret: "whsec_first_week", retryDelaysMs: [500] });
-  closers.push(() => smtp.close(), () => uploads.close(), () => payments.close());
-  app = await startAppServer({
+  closers.push(() => uploads.close(), () => payments.close());
+  app = await startRunningNextServer({
+    distDir: inject("distDir"),
+    port,
+    env: {
     DATABASE_URL: dbUrl,
     NEXTAUTH_SECRET: "first-week-secret-first-week-secret-0001",
-    SMTP_URL: `smtp://127.0.0.1:${smtp.smtpPort}`,
+    SMTP_URL: smtp.smtpUrl,
     MAIL_FROM: "Millbrook Diesel & Hydraulic <service@millbrook-diesel.example>",
     STRIPE_SECRET_KEY: "",
     // A production server: the fakes only because we say so (lib/env.ts).
@@ -48,13 +52,14 @@ beforeAll(async () => {
     FAKE_STRIPE_PORT: String(payments.port),
     STRIPE_WEBHOOK_SECRET: "whsec_first_week",
     FAKE_UPLOADTHING_PORT: new URL(uploads.url).port,
-  }, port);
+    },
+  });
   browser = await launch();
 });
 
 afterAll(async () => {
   await browser?.close();
-  app?.stop();
+  await app?.stop();
   await Promise.all(closers.map((c) => c()));
 });
 

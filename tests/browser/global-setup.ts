@@ -7,13 +7,13 @@ import { seedDatabase } from "@/db/seed";
 import { startFakeSmtp } from "@/mocks/smtp/server";
 import { startFakeStripe } from "@/mocks/stripe/server";
 import { startFakeUploadThing } from "@/mocks/uploadthing/server";
+import { APP_MAILBOX, mailbox } from "@/tests/support/mailbox";
 import { freePort } from "@/tests/support/ports";
-import { distDir, root, startAppServer } from "./app-server";
+import { root, startRunningNextServer, testDistDir as distDir } from "@/tests/support/next-server";
 
 declare module "vitest" {
   export interface ProvidedContext {
     baseUrl: string;
-    mailUrl: string;
     paymentsUrl: string;
     /** The app's database file, for tests that read ids or check that nothing changed. */
     dbUrl: string;
@@ -48,7 +48,9 @@ export default async function setup(project: TestProject) {
   await migrateDatabase(dbUrl);
   await seedDatabase(dbUrl);
 
-  const smtp = await startFakeSmtp();
+  // The run's one mail catcher: the shared server and any server a test starts each send to a mailbox of their own.
+  const smtp = await startFakeSmtp({ keep: 20_000 });
+  const mailCatcher = { smtpPort: smtp.smtpPort, httpUrl: `http://127.0.0.1:${smtp.httpPort}` };
   const uploads = await startFakeUploadThing({ port: 0, storageDir: uploadsDir });
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
@@ -56,11 +58,13 @@ export default async function setup(project: TestProject) {
   const authSecret = "browser-tests-secret-browser-tests-secret";
   // Retries come quickly here, in the same rising shape as the service's.
   const payments = await startFakeStripe({ port: 0, webhookUrl: `${baseUrl}/api/webhooks/stripe`, webhookSecret, retryDelaysMs: [500, 2_000, 5_000] });
-  const server = await startAppServer(
-    {
+  const server = await startRunningNextServer({
+    distDir,
+    port,
+    env: {
       DATABASE_URL: dbUrl,
       NEXTAUTH_SECRET: authSecret,
-      SMTP_URL: `smtp://127.0.0.1:${smtp.smtpPort}`,
+      SMTP_URL: mailbox(mailCatcher, APP_MAILBOX).smtpUrl,
       STRIPE_SECRET_KEY: "",
       // A production server: the fakes only because we say so (lib/env.ts).
       COTTER_USE_FAKE_STRIPE: "1",
@@ -70,18 +74,16 @@ export default async function setup(project: TestProject) {
       // No UPLOADTHING_TOKEN: the app points the SDK at the fake on this port (lib/uploads/config.ts).
       FAKE_UPLOADTHING_PORT: new URL(uploads.url).port,
     },
-    port,
-  );
+  });
 
   project.provide("baseUrl", baseUrl);
-  project.provide("mailUrl", `http://127.0.0.1:${smtp.httpPort}`);
+  project.provide("mailCatcher", mailCatcher);
   project.provide("paymentsUrl", payments.url);
   project.provide("dbUrl", dbUrl);
   project.provide("authSecret", authSecret);
   project.provide("distDir", distDir);
 
   return async () => {
-    server.stop();
-    await Promise.all([smtp.close(), uploads.close(), payments.close()]);
+    await Promise.all([server.stop(), smtp.close(), uploads.close(), payments.close()]);
   };
 }

@@ -2,6 +2,8 @@ import { existsSync, mkdirSync } from "node:fs";
 import path from "node:path";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { inject } from "vitest";
+import type { CaughtMail } from "@/mocks/smtp/server";
+import { APP_MAILBOX, mailbox } from "@/tests/support/mailbox";
 
 // Debian's Chromium: the binary itself avoids the wrapper script's warning.
 const EXECUTABLE = ["/usr/lib/chromium/chromium", "/usr/bin/chromium"].find((p) => existsSync(p)) ?? "/usr/bin/chromium";
@@ -51,7 +53,7 @@ export async function screenshot(page: Page, name: string): Promise<void> {
   await page.screenshot({ path: path.join(shots, `${name}.png`), fullPage: true });
 }
 
-export async function caughtMail(): Promise<{ to: string[]; subject: string; text: string; html: string }[]> {
-  const res = await fetch(`${inject("mailUrl")}/messages`);
-  return ((await res.json()) as { messages: { to: string[]; subject: string; text: string; html: string }[] }).messages;
+/** What the shared app server has sent so far, newest first. */
+export async function caughtMail(): Promise<CaughtMail[]> {
+  return mailbox(inject("mailCatcher"), APP_MAILBOX).messages();
 }

@@ -7,21 +7,24 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { and, eq } from "drizzle-orm";
 import { encode } from "next-auth/jwt";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { openDatabase } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
 import { seedDatabase } from "@/db/seed";
 import { mailOutbox, users, workOrders } from "@/db/schema";
 import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { freePort } from "@/tests/support/ports";
-import { startApp, type AppProcess } from "./app-process";
+import { startNextServer, type NextServer } from "@/tests/support/next-server";
+
+/** `next start` of the test build with exactly the environment given (plus PATH and HOME). */
+const startApp = (env: Record<string, string>): Promise<NextServer> => startNextServer({ distDir: inject("distDir"), env, inheritEnv: false });
 
 const SECRET = "mail-restart-tests-secret-mail-restart";
 const dir = mkdtempSync(path.join(tmpdir(), "cotter-mail-restart-"));
 const dbUrl = `file:${path.join(dir, "cotter.db")}`;
 let handle: ReturnType<typeof openDatabase>;
 let smtp: FakeSmtp | null = null;
-let app: AppProcess | null = null;
+let app: NextServer | null = null;
 
 beforeAll(async () => {
   await migrateDatabase(dbUrl);

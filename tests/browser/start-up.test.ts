@@ -4,9 +4,12 @@
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { migrateDatabase } from "@/db/migrate";
-import { startApp } from "./app-process";
+import { startNextServer, type NextServer } from "@/tests/support/next-server";
+
+/** `next start` of the test build with exactly the environment given (plus PATH and HOME). */
+const startApp = (env: Record<string, string>): Promise<NextServer> => startNextServer({ distDir: inject("distDir"), env, inheritEnv: false });
 
 // A database of its own: a server started here must not touch (or send) the shared test server's mail.
 const dir = mkdtempSync(path.join(tmpdir(), "cotter-start-up-"));

@@ -49,7 +49,7 @@ describe("check-in: a writer opens a work order on a unit", () => {
     expect(m.text).toContain("Wing plow will not raise.");
     await mail.smtp().waitFor((x) => x.to.includes("trustee@brennan-twp.example") && x.subject.includes("checked in"));
     // Clerks and viewers are not approvers: no "checked in" mail for them.
-    expect(mail.smtp().messages.some((x) => x.to.includes("clerk@brennan-twp.example") && x.subject.includes("checked in"))).toBe(false);
+    expect((await mail.smtp().messages()).some((x) => x.to.includes("clerk@brennan-twp.example") && x.subject.includes("checked in"))).toBe(false);
   });
 
   it("a second open work order on the same unit is 409 unit_in_shop with a link to the open one", async () => {

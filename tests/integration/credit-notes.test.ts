@@ -16,11 +16,12 @@ import { recordManualPayment, voidInvoice } from "@/db/queries/payments";
 import { creditNotes, invoices } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
-import { queueCreditNote } from "@/lib/mail/invoice-notices";
+import { queueCreditNote } from "@/lib/server/notifications/invoices";
 import { formatCents } from "@/lib/money";
-import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { call } from "./helpers/app";
-import { asUser, setLines, workOrderByNumber } from "./helpers/billing";
+import { asUser, setLines } from "./helpers/billing";
+import { workOrderByNumber } from "./helpers/work-orders";
+import { fileMailbox } from "./helpers/mail";
 
 const WRITER = "writer@quarry-road.example";
 const OFFICE = "office@kettle-ridge.example"; // approver, Kettle Ridge (owns Haul 5, W-1048)
@@ -28,17 +29,14 @@ const OFFICE = "office@kettle-ridge.example"; // approver, Kettle Ridge (owns Ha
 let invoiceId = "";
 let accountId = "";
 let sensorLineId = "";
-let smtp: FakeSmtp;
+const smtp = fileMailbox();
 
 afterAll(async () => {
   delete process.env.SMTP_URL;
   resetEnvCache();
-  await smtp?.close();
 });
 
 beforeAll(async () => {
-  smtp = await startFakeSmtp({ smtpPort: 0, httpPort: 0 });
-  process.env.SMTP_URL = `smtp://127.0.0.1:${smtp.smtpPort}`;
   resetEnvCache();
   const wo = await workOrderByNumber(1048);
   accountId = wo.accountId;

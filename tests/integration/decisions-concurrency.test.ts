@@ -3,7 +3,8 @@ import { describe, expect, it } from "vitest";
 import { POST as decideOne } from "@/app/api/v1/lines/[id]/decision/route";
 import { POST as decideBatch } from "@/app/api/v1/work-orders/[id]/decisions/route";
 import { getDb } from "@/db/client";
-import { budgetUsedCents, currentFiscalYear } from "@/db/queries/estimate-context";
+import { budgetUsedCents, recountBudgetUsed } from "@/db/queries/budget-use";
+import { currentFiscalYear } from "@/db/queries/estimate-context";
 import { accounts, decisions, estimateLines, units, workOrders } from "@/db/schema";
 import { call, userByEmail } from "./helpers/app";
 
@@ -40,7 +41,8 @@ describe("limits hold under concurrent decisions (one transaction per decision)"
     const { wo, lines, accountId } = await openWorkOrderWithLines(28, 100_000);
     // Leave exactly $9,500.00 of budget this fiscal year: room for nine $1,000.00 lines.
     const [account] = await getDb().select().from(accounts).where(eq(accounts.id, accountId));
-    const used = await budgetUsedCents(getDb(), accountId, currentFiscalYear(account!));
+    const bounds = currentFiscalYear(account!);
+    const used = await recountBudgetUsed(getDb(), accountId, bounds);
     await getDb().update(accounts).set({ repairBudgetCents: used + 950_000 }).where(eq(accounts.id, accountId));
 
     const singles = lines.slice(0, 24).map((line, i) =>
@@ -82,6 +84,9 @@ describe("limits hold under concurrent decisions (one transaction per decision)"
     const total = approved.reduce((s, l) => s + (l.approvedAmountCents ?? 0), 0);
     expect(total).toBeLessThanOrEqual(950_000);
     expect(total).toBe(900_000); // the budget is used as far as it goes
+    // The running total the decisions kept is the full recount.
+    expect(await recountBudgetUsed(getDb(), accountId, bounds)).toBe(used + 900_000);
+    expect(await budgetUsedCents(getDb(), accountId, bounds)).toBe(used + 900_000);
     const supervisor = await userByEmail(SUPERVISOR);
     const bySupervisor = approved.filter((l) => l.approvedByUserId === supervisor.id).reduce((s, l) => s + (l.approvedAmountCents ?? 0), 0);
     expect(bySupervisor).toBeLessThanOrEqual(500_000);

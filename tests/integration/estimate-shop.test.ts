@@ -6,13 +6,13 @@ import { addLine, bringBackDeferred, editLine } from "@/db/queries/estimate-line
 import { sendEstimate, startUnderStanding } from "@/db/queries/estimate-send";
 import { accounts, auditLog, estimateLines, workOrders } from "@/db/schema";
 import { getDb, writeTx } from "@/db/client";
-import { deliverDueMail } from "@/lib/mail/worker";
-import { DECISION_MAIL_WINDOW_MS, queueDecisionMade, queueEstimateReady, queueLineReopened } from "@/lib/notifications/estimate";
+import { deliverDueMail } from "@/lib/server/mail/worker";
+import { DECISION_MAIL_WINDOW_MS, queueDecisionMade, queueEstimateReady, queueLineReopened } from "@/lib/server/notifications/estimate";
 import { sessionUser } from "./helpers/app";
-import { mailCatcherForFile } from "./helpers/fake-smtp";
+import { fileMailbox } from "./helpers/mail";
 import { lineByDescription, linesOf, workOrderByNumber } from "./helpers/work-orders";
 
-const catcher = mailCatcherForFile();
+const mailbox = fileMailbox();
 
 const writer = () => sessionUser("writer@quarry-road.example");
 const supervisor = () => sessionUser("supervisor@brennan-twp.example");
@@ -44,8 +44,8 @@ describe("the writer's estimate: revise, start under standing authorisation, bri
 
     await writeTx((tx) => queueLineReopened(tx, wo.id, { description: again.description, approvedCents: 18_640, revisedCents: 20_505, reason: back.reason ?? "" }));
     // One message per approver, so nobody sees the others' addresses.
-    const mail = await catcher().waitFor((m) => m.subject.includes("needs your approval again") && m.to.includes("supervisor@brennan-twp.example"));
-    await catcher().waitFor((m) => m.subject.includes("needs your approval again") && m.to.includes("trustee@brennan-twp.example"));
+    const mail = await mailbox.waitFor((m) => m.subject.includes("needs your approval again") && m.to.includes("supervisor@brennan-twp.example"));
+    await mailbox.waitFor((m) => m.subject.includes("needs your approval again") && m.to.includes("trustee@brennan-twp.example"));
     expect(mail.to).toEqual(["supervisor@brennan-twp.example"]);
     expect(mail.text).toContain(`/fleet/work-orders/${wo.id}`);
     expect(mail.text).toContain("$186.40");
@@ -71,7 +71,7 @@ describe("the writer's estimate: revise, start under standing authorisation, bri
     expect(after!.status).toBe("waiting_approval");
     expect((await linesOf(wo.id)).filter((l) => l.state === "proposed")).toHaveLength(1);
     await writeTx((tx) => queueEstimateReady(tx, wo.id, sentCount));
-    const mail = await catcher().waitFor((m) => m.subject.includes("Bus 9") && m.subject.includes("estimate ready"));
+    const mail = await mailbox.waitFor((m) => m.subject.includes("Bus 9") && m.subject.includes("estimate ready"));
     expect(mail.to).toEqual(["transport@alder-falls-schools.example"]);
     expect(mail.text).toContain(`http://localhost:3000/fleet/work-orders/${wo.id}`);
   });
@@ -81,7 +81,7 @@ describe("the writer's estimate: revise, start under standing authorisation, bri
     await writeTx((tx) => queueDecisionMade(tx, wo.id, { approverName: "Gary Holm", summary: "approve 1 line ($186.40)", stillPending: 9 }));
     // Decisions wait two minutes for others to join them; the worker is asked as if that time has come.
     await deliverDueMail(new Date(Date.now() + DECISION_MAIL_WINDOW_MS + 1000));
-    const mail = await catcher().waitFor((m) => m.subject.includes("Gary Holm decided"));
+    const mail = await mailbox.waitFor((m) => m.subject.includes("Gary Holm decided"));
     expect(mail.to).toEqual(["writer@quarry-road.example"]);
     expect(mail.text).toContain(`/work-orders/${wo.id}`);
   });

@@ -15,13 +15,14 @@ import { POST as postFinding } from "@/app/api/v1/work-orders/[id]/findings/rout
 import { photoRouter, type PhotoRouter } from "@/app/api/uploadthing/core";
 import { GET as utGet, POST as utPost } from "@/app/api/uploadthing/route";
 import { getDb } from "@/db/client";
-import { photos, workOrders } from "@/db/schema";
+import { photos } from "@/db/schema";
 import { jpegHasGps } from "@/lib/uploads/exif-gps";
-import type { PhotoUploadResult } from "@/lib/uploads/store-photo";
+import type { PhotoUploadResult } from "@/lib/server/uploads/store-photo";
 import { call, sessionCookie } from "./helpers/app";
 import { startUploadFake, type UploadFake } from "./helpers/fake-uploads";
 import { installNodeXhr } from "./helpers/node-xhr";
 import { serveFetchHandler } from "./helpers/serve-fetch-handler";
+import { workOrderByNumber } from "./helpers/work-orders";
 
 let uploads: UploadFake;
 let app: { url: string; close(): Promise<void> };
@@ -39,12 +40,6 @@ afterAll(async () => {
   uninstallXhr();
   await Promise.all([app?.close(), uploads?.stop()]);
 });
-
-async function workOrder(number: number) {
-  const [row] = await getDb().select().from(workOrders).where(eq(workOrders.number, number)).limit(1);
-  if (!row) throw new Error(`no W-${number}`);
-  return row;
-}
 
 async function upload(files: File[], workOrderId: string, as = TECH) {
   const { uploadFiles } = genUploader<PhotoRouter>({ url: new URL("/api/uploadthing", app.url), package: "vitest", fetch: globalThis.fetch });
@@ -74,7 +69,7 @@ const served = (handler: typeof photoFull, id: string, as: string) =>
 
 describe("a technician's finding with two photos, through the upload SDK and the local fake", () => {
   it("stores clean copies without location data, attaches them, and shows them only within the account", async () => {
-    const wo = await workOrder(1044); // Bus 22, the school district's
+    const wo = await workOrderByNumber(1044); // Bus 22, the school district's
     const results = await upload([await phonePhoto("right-rear-chamber.jpg"), await pngPhoto("slack-adjuster.png")], wo.id);
     expect(results).toHaveLength(2);
     const data = results.map((r) => r.serverData as PhotoUploadResult);
@@ -127,7 +122,7 @@ describe("a technician's finding with two photos, through the upload SDK and the
   });
 
   it("takes a phone's HEIC photo and serves it as a plain JPEG (HEVC-coded HEIF, decoded by heic-convert)", async () => {
-    const wo = await workOrder(1044);
+    const wo = await workOrderByNumber(1044);
     const heic = await readFile(join(import.meta.dirname, "..", "fixtures", "brake-chamber-drawing.heic"));
     const [result] = await upload([new File([new Uint8Array(heic)], "IMG_0042.HEIC", { type: "image/heic" })], wo.id);
     const data = result?.serverData as PhotoUploadResult;
@@ -148,7 +143,7 @@ describe("a technician's finding with two photos, through the upload SDK and the
   });
 
   it("serves a photo by what its bytes are: a stored file that is not an image is never sent", async () => {
-    const wo = await workOrder(1044);
+    const wo = await workOrderByNumber(1044);
     const [result] = await upload([await phonePhoto("hub-seal.jpg")], wo.id);
     const data = result?.serverData as PhotoUploadResult;
     if (!data.ok) throw new Error(data.error);
@@ -163,7 +158,7 @@ describe("a technician's finding with two photos, through the upload SDK and the
   });
 
   it("works the same under `next dev`, where the fake streams the callback back to the route handler", async () => {
-    const wo = await workOrder(1044);
+    const wo = await workOrderByNumber(1044);
     process.env.UPLOADTHING_IS_DEV = "true";
     try {
       const [result] = await upload([await pngPhoto("dev-mode.png")], wo.id);
@@ -174,7 +169,7 @@ describe("a technician's finding with two photos, through the upload SDK and the
   });
 
   it("refuses a 20 MB file before anything is uploaded, with its size in the message", async () => {
-    const wo = await workOrder(1044);
+    const wo = await workOrderByNumber(1044);
     const before = (await readdir(uploads.storage)).length;
     const big = new File([new Uint8Array(20 * 1024 * 1024)], "whole-axle.jpg", { type: "image/jpeg" });
     await expect(upload([big], wo.id)).rejects.toMatchObject({ message: "whole-axle.jpg is 20.0 MB; a photo may be at most 8 MB." });
@@ -182,7 +177,7 @@ describe("a technician's finding with two photos, through the upload SDK and the
   });
 
   it("refuses a text file renamed .jpg by its contents, keeps nothing, and says why", async () => {
-    const wo = await workOrder(1044);
+    const wo = await workOrderByNumber(1044);
     const before = await getDb().select().from(photos);
     const fakeJpeg = new File(["Right rear stroke 2 1/4 in. Needs a slack adjuster.\n"], "notes.jpg", { type: "image/jpeg" });
     const [result] = await upload([fakeJpeg], wo.id);
@@ -193,7 +188,7 @@ describe("a technician's finding with two photos, through the upload SDK and the
   });
 
   it("refuses uploads from fleet people and for another account's work order (the middleware runs first)", async () => {
-    const wo = await workOrder(1044);
+    const wo = await workOrderByNumber(1044);
     await expect(upload([await pngPhoto("a.png")], wo.id, "transport@alder-falls-schools.example")).rejects.toMatchObject({
       message: "Your role may not add photos to findings.",
     });
@@ -202,7 +197,7 @@ describe("a technician's finding with two photos, through the upload SDK and the
   });
 
   it("will not attach another technician's photo", async () => {
-    const wo = await workOrder(1044);
+    const wo = await workOrderByNumber(1044);
     const [uploaded] = await upload([await pngPhoto("mine.png")], wo.id, "tech@quarry-road.example");
     const mine = uploaded?.serverData as PhotoUploadResult;
     if (!mine.ok) throw new Error(mine.error);

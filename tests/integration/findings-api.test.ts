@@ -5,12 +5,7 @@ import { GET as listFindings, POST as postFinding } from "@/app/api/v1/work-orde
 import { getDb } from "@/db/client";
 import { estimateLines, findingReadings, findings, workOrders } from "@/db/schema";
 import { call } from "./helpers/app";
-
-async function workOrder(number: number) {
-  const [row] = await getDb().select().from(workOrders).where(eq(workOrders.number, number)).limit(1);
-  if (!row) throw new Error(`no W-${number}`);
-  return row;
-}
+import { workOrderByNumber } from "./helpers/work-orders";
 
 interface FindingBody {
   id: string;
@@ -29,7 +24,7 @@ const post = (id: string, as: string | null, body: unknown) =>
 
 describe("POST /api/v1/work-orders/:id/findings: readings are checked on the server", () => {
   it("works out every verdict itself from the typed input, ignoring a verdict sent by the phone", async () => {
-    const wo = await workOrder(1044);
+    const wo = await workOrderByNumber(1044);
     const res = await post(wo.id, "tech2@quarry-road.example", {
       title: "Right rear brake stroke past the readjustment limit",
       severity: "out_of_service",
@@ -66,7 +61,7 @@ describe("POST /api/v1/work-orders/:id/findings: readings are checked on the ser
   });
 
   it("uses the unit's own key-off drain figure when the technician types none (common practice: per-unit limit)", async () => {
-    const wo = await workOrder(1043); // T-9, whose accepted drain is 120 mA in the demo data
+    const wo = await workOrderByNumber(1043); // T-9, whose accepted drain is 120 mA in the demo data
     const res = await post(wo.id, "tech@quarry-road.example", {
       title: "Key-off drain after the modules slept",
       severity: "fix_now",
@@ -78,7 +73,7 @@ describe("POST /api/v1/work-orders/:id/findings: readings are checked on the ser
   });
 
   it("refuses a reading that cannot be checked, naming it, and writes nothing", async () => {
-    const wo = await workOrder(1044);
+    const wo = await workOrderByNumber(1044);
     const before = await getDb().select().from(findings);
     const res = await post(wo.id, "tech2@quarry-road.example", {
       title: "Odd chamber",
@@ -102,7 +97,7 @@ describe("POST /api/v1/work-orders/:id/findings: readings are checked on the ser
   });
 
   it("refuses a fleet user (403), photos that are not the technician's uploads (400) and a closed visit (409)", async () => {
-    const wo = await workOrder(1042);
+    const wo = await workOrderByNumber(1042);
     const finding = { title: "Leaking hub seal", severity: "plan" };
     expect((await post(wo.id, "supervisor@brennan-twp.example", finding)).status).toBe(403);
     const photos = await post(wo.id, "tech@quarry-road.example", { ...finding, photoIds: ["not-a-photo-of-mine"] });
@@ -121,7 +116,7 @@ describe("POST /api/v1/work-orders/:id/findings: readings are checked on the ser
 
 describe("reading findings back: Out of service first, and only within the account", () => {
   it("lists Out of service before the rest for the fleet, and 404s another account's finding and work order", async () => {
-    const wo = await workOrder(1044);
+    const wo = await workOrderByNumber(1044);
     await post(wo.id, "tech2@quarry-road.example", { title: "Wiper blades streaking", severity: "note" });
     const own = await call<{ findings: FindingBody[] }>(listFindings, {
       path: `/api/v1/work-orders/${wo.id}/findings`,

@@ -85,7 +85,7 @@ describe("invitations: people set their own password from a single-use link", ()
     });
     expect(first.status).toBe(201);
     const { token: oldToken } = await tokenMailedTo("mechanic@brennan-twp.example");
-    mail.smtp().clear();
+    await mail.smtp().clear();
     const re = await call(resend, { path: `/api/v1/invitations/${first.body.id}/resend`, as: WRITER, method: "POST", params: { id: first.body.id } });
     expect(re.status).toBe(200);
     const { token: newToken } = await tokenMailedTo("mechanic@brennan-twp.example");

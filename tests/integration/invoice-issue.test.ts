@@ -9,21 +9,19 @@ import { voidInvoice } from "@/db/queries/payments";
 import { accounts, concerns, counters, estimateLines, invoices, workOrders } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { HttpError } from "@/lib/http/problem";
-import { queueInvoiceIssued } from "@/lib/mail/invoice-notices";
-import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
+import { queueInvoiceIssued } from "@/lib/server/notifications/invoices";
 import { call } from "./helpers/app";
-import { allInvoiceNumbers, asUser, setLines, workOrderByNumber } from "./helpers/billing";
+import { allInvoiceNumbers, asUser, setLines } from "./helpers/billing";
+import { workOrderByNumber } from "./helpers/work-orders";
+import { fileMailbox } from "./helpers/mail";
 
 // Rules from the issue and product.md ("Invoices and payments", "Computation
 // rules"); amounts worked by hand beside each check.
-let smtp: FakeSmtp;
+const smtp = fileMailbox();
 beforeAll(async () => {
-  smtp = await startFakeSmtp({ smtpPort: 0, httpPort: 0 });
-  process.env.SMTP_URL = `smtp://127.0.0.1:${smtp.smtpPort}`;
   resetEnvCache();
 });
 afterAll(async () => {
-  await smtp.close();
 });
 
 async function refusal(p: Promise<unknown>): Promise<HttpError> {

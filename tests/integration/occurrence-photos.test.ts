@@ -20,12 +20,12 @@ import { getDb } from "@/db/client";
 import { mailOutbox, occurrences, photos, units, workOrders } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { jpegHasGps } from "@/lib/uploads/exif-gps";
-import type { PhotoUploadResult } from "@/lib/uploads/store-photo";
-import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
+import type { PhotoUploadResult } from "@/lib/server/uploads/store-photo";
 import { startFakeUploadThing, type FakeUploadThing } from "@/mocks/uploadthing/server";
 import { call, sessionCookie, userByEmail, type Problem } from "./helpers/app";
 import { installNodeXhr } from "./helpers/node-xhr";
 import { serveFetchHandler } from "./helpers/serve-fetch-handler";
+import { fileMailbox } from "./helpers/mail";
 
 const FOREMAN = "foreman@brennan-twp.example"; // viewer, township
 const SUPERVISOR = "supervisor@brennan-twp.example"; // approver, township
@@ -41,7 +41,7 @@ interface Entry {
 type Posted = Entry & Problem;
 
 let fake: FakeUploadThing;
-let smtp: FakeSmtp;
+const smtp = fileMailbox();
 let app: { url: string; close(): Promise<void> };
 let storage: string;
 let uninstallXhr = (): void => {};
@@ -57,10 +57,8 @@ async function unitId(unitNumber: string) {
 beforeAll(async () => {
   storage = await mkdtemp(join(tmpdir(), "cotter-occurrence-photos-"));
   fake = await startFakeUploadThing({ port: 0, storageDir: storage, onWarning: () => undefined });
-  smtp = await startFakeSmtp({ smtpPort: 0, httpPort: 0 });
   delete process.env.UPLOADTHING_TOKEN;
   process.env.FAKE_UPLOADTHING_PORT = new URL(fake.url).port;
-  process.env.SMTP_URL = `smtp://127.0.0.1:${smtp.smtpPort}`;
   resetEnvCache();
   uninstallXhr = installNodeXhr();
   app = await serveFetchHandler((request) => (request.method === "GET" ? utGet(request) : utPost(request)));
@@ -79,7 +77,7 @@ afterAll(async () => {
   delete process.env.FAKE_UPLOADTHING_PORT;
   delete process.env.SMTP_URL;
   resetEnvCache();
-  await Promise.all([app?.close(), fake?.close(), smtp?.close()]);
+  await Promise.all([app?.close(), fake?.close()]);
   await rm(storage, { recursive: true, force: true });
 });
 

@@ -7,8 +7,8 @@ import { closeConcern, markIntermittent } from "@/db/queries/intermittent-concer
 import { concerns, mailOutbox, occurrences, units } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { celsiusFromFahrenheit } from "@/lib/occurrences/temperature";
-import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { call, userByEmail, type Problem } from "./helpers/app";
+import { fileMailbox } from "./helpers/mail";
 
 const FOREMAN = "foreman@brennan-twp.example"; // viewer, township
 const SUPERVISOR = "supervisor@brennan-twp.example"; // approver, township
@@ -38,7 +38,7 @@ interface Log {
   concerns: { id: string; complaint: string; recordHint: string; closedAt: string | null; conclusion: string }[];
 }
 
-let smtp: FakeSmtp;
+const smtp = fileMailbox();
 let t9: string;
 let bus14: string;
 let t9Concern: string;
@@ -59,8 +59,6 @@ async function postAs(as: string | null, unit: string, body: unknown) {
 }
 
 beforeAll(async () => {
-  smtp = await startFakeSmtp({ smtpPort: 0, httpPort: 0 });
-  process.env.SMTP_URL = `smtp://127.0.0.1:${smtp.smtpPort}`;
   resetEnvCache();
   t9 = await unitId("T-9");
   bus14 = await unitId("Bus 14");
@@ -75,7 +73,6 @@ afterAll(async () => {
     if ((row?.n ?? 0) >= posted * 2) break;
     await new Promise((r) => setTimeout(r, 100));
   }
-  await smtp?.close();
 });
 
 describe("POST /api/v1/units/:id/occurrences (api-v1.md)", () => {
@@ -102,7 +99,7 @@ describe("POST /api/v1/units/:id/occurrences (api-v1.md)", () => {
   });
 
   it("e-mails the writer and the assigned technician through SMTP, linking straight to the concern", async () => {
-    smtp.clear();
+    await smtp.clear();
     const res = await postAs(FOREMAN, t9, { occurredAt: now(), hoursParked: 15, ambientC: -9, symptom: "no_start", batteryVolts: 11.7, note: "Mail check" });
     expect(res.status).toBe(201);
     const toTech = await smtp.waitFor((m) => m.to.includes(TECH) && m.text.includes("Mail check"));
@@ -117,7 +114,7 @@ describe("POST /api/v1/units/:id/occurrences (api-v1.md)", () => {
       expect(m.text).toContain("15.8 °F");
     }
     // Only the shop hears about it; nobody at another account does.
-    expect(smtp.messages.filter((m) => m.text.includes("Mail check")).flatMap((m) => m.to).sort()).toEqual([TECH, WRITER].sort());
+    expect((await smtp.messages()).filter((m) => m.text.includes("Mail check")).flatMap((m) => m.to).sort()).toEqual([TECH, WRITER].sort());
   });
 
   it("refuses invalid values with 400 and a field error for each (api-v1.md: never a 500)", async () => {

@@ -4,13 +4,13 @@
 import { describe, expect, it } from "vitest";
 import { decide } from "@/db/queries/decisions";
 import { higherLimitApprovers, passLinesOn } from "@/db/queries/pass-on";
-import { deliverDueMail } from "@/lib/mail/worker";
-import { queuePassedOn } from "@/lib/notifications/pass-on";
+import { deliverDueMail } from "@/lib/server/mail/worker";
+import { queuePassedOn } from "@/lib/server/notifications/pass-on";
 import { sessionUser } from "./helpers/app";
-import { mailCatcherForFile } from "./helpers/fake-smtp";
+import { fileMailbox } from "./helpers/mail";
 import { lineByDescription, linesOf, workOrderByNumber } from "./helpers/work-orders";
 
-const catcher = mailCatcherForFile();
+const mailbox = fileMailbox();
 
 describe("passing lines past one's signing limit to a colleague", () => {
   it("offers only active approvers of the same account with a higher limit", async () => {
@@ -34,7 +34,7 @@ describe("passing lines past one's signing limit to a colleague", () => {
     expect(passed.lines).toEqual([{ id: moldboard.id, description: moldboard.description, amountCents: 564_000 }]);
     expect((await lineByDescription(wo.id, "Moldboard")).state).toBe("proposed");
     await deliverDueMail();
-    const mail = await catcher().waitFor((m) => m.to.includes("trustee@brennan-twp.example") && m.subject.includes("passed 1 line to you"));
+    const mail = await mailbox.waitFor((m) => m.to.includes("trustee@brennan-twp.example") && m.subject.includes("passed 1 line to you"));
     expect(mail.text).toContain(`/fleet/work-orders/${wo.id}#line-${moldboard.id}`);
     expect(mail.text).toContain("$5,640.00");
     // The colleague can decide it.

@@ -6,7 +6,7 @@ import { acceptInvitation, createInvitation } from "@/db/queries/invitations";
 import { setPersonActive } from "@/db/queries/people";
 import { getDb } from "@/db/client";
 import { apiTokens, accounts } from "@/db/schema";
-import { authOptions } from "@/lib/auth/options";
+import { authOptions } from "@/lib/server/auth/options";
 import { call, sessionUser } from "./helpers/app";
 
 const authorize = (email: string, password: string) =>

@@ -7,8 +7,8 @@ import { UTFile } from "uploadthing/server";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { getDb } from "@/db/client";
 import { photos, units } from "@/db/schema";
-import { KEEP_UNATTACHED_MS, sweepUnattachedPhotos } from "@/lib/uploads/sweep-photos";
-import { utApi } from "@/lib/uploads/ut-api";
+import { KEEP_UNATTACHED_MS, sweepUnattachedPhotos } from "@/lib/server/uploads/sweep-photos";
+import { utApi } from "@/lib/server/uploads/ut-api";
 import { userByEmail } from "./helpers/app";
 import { startUploadFake, type UploadFake } from "./helpers/fake-uploads";
 

@@ -6,8 +6,8 @@ import { and, desc, eq, like } from "drizzle-orm";
 import { afterEach, describe, expect, it } from "vitest";
 import { getDb } from "@/db/client";
 import { auditLog, signInFailures } from "@/db/schema";
-import { authOptions } from "@/lib/auth/options";
-import { installSocketAddressStamp, SOCKET_ADDRESS_HEADER } from "@/lib/http/client-address";
+import { authOptions } from "@/lib/server/auth/options";
+import { installSocketAddressStamp, SOCKET_ADDRESS_HEADER } from "@/lib/server/http/client-address";
 import { resetEnvCache } from "@/lib/env";
 
 type Authorize = (c: Record<string, string>, req: { headers: Record<string, string> }) => Promise<unknown>;

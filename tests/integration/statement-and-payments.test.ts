@@ -17,12 +17,12 @@ import { accounts, invoices, units, users, workOrders } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
 import { HttpError } from "@/lib/http/problem";
 import { CSV_COLUMNS } from "@/lib/invoices/csv";
-import { queuePaymentReceived } from "@/lib/mail/invoice-notices";
-import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
+import { queuePaymentReceived } from "@/lib/server/notifications/invoices";
 import { call, sessionUser, userByEmail } from "./helpers/app";
 import { asUser, setLines } from "./helpers/billing";
+import { fileMailbox } from "./helpers/mail";
 
-let smtp: FakeSmtp;
+const smtp = fileMailbox();
 let accountId = "";
 const ids: Record<string, string> = {};
 
@@ -44,8 +44,6 @@ async function refusal(p: Promise<unknown>): Promise<HttpError> {
 }
 
 beforeAll(async () => {
-  smtp = await startFakeSmtp({ smtpPort: 0, httpPort: 0 });
-  process.env.SMTP_URL = `smtp://127.0.0.1:${smtp.smtpPort}`;
   resetEnvCache();
   const db = getDb();
   const clerk = await userByEmail("clerk@brennan-twp.example");
@@ -74,7 +72,6 @@ afterEach(() => {
   vi.useRealTimers();
 });
 afterAll(async () => {
-  await smtp.close();
 });
 
 describe("payments the shop records by hand", () => {

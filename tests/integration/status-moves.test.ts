@@ -4,17 +4,12 @@ import { GET as visit } from "@/app/api/v1/units/[id]/visit/route";
 import { POST as move } from "@/app/api/v1/work-orders/[id]/status/route";
 import { GET as listOrders } from "@/app/api/v1/work-orders/route";
 import { getDb } from "@/db/client";
-import { auditLog, statusEvents, workOrders } from "@/db/schema";
+import { auditLog, statusEvents } from "@/db/schema";
 import { call } from "./helpers/app";
 import { catchMail } from "./helpers/mail";
+import { workOrderByNumber } from "./helpers/work-orders";
 
 const mail = catchMail();
-
-async function workOrder(number: number) {
-  const [row] = await getDb().select().from(workOrders).where(eq(workOrders.number, number)).limit(1);
-  if (!row) throw new Error(`no W-${number}`);
-  return row;
-}
 
 const post = (id: string, as: string | null, body: unknown) =>
   call<Record<string, unknown> & { code?: string; detail?: string; status: string }>(move, {
@@ -31,7 +26,7 @@ interface Visit {
 
 describe("POST /api/v1/work-orders/:id/status", () => {
   it("lets the technician move a visit with a note; the move is a dated timeline entry the fleet reads at once", async () => {
-    const wo = await workOrder(1043);
+    const wo = await workOrderByNumber(1043);
     const before = Date.now();
     const res = await post(wo.id, "tech@quarry-road.example", { status: "waiting_parts", note: "Battery cable ends corroded; new ends ordered." });
     expect(res.status).toBe(200);
@@ -58,7 +53,7 @@ describe("POST /api/v1/work-orders/:id/status", () => {
   });
 
   it("allows an update in the same status only with a note", async () => {
-    const wo = await workOrder(1045);
+    const wo = await workOrderByNumber(1045);
     const bare = await post(wo.id, "writer@quarry-road.example", { status: "repairing" });
     expect(bare.status).toBe(400);
     expect(bare.body.code).toBe("invalid_input");
@@ -67,7 +62,7 @@ describe("POST /api/v1/work-orders/:id/status", () => {
   });
 
   it("refuses fleet people (403), nobody (401), unknown statuses and malformed bodies (400), and unknown ids (404)", async () => {
-    const wo = await workOrder(1046);
+    const wo = await workOrderByNumber(1046);
     expect((await post(wo.id, "supervisor@brennan-twp.example", { status: "repairing" })).status).toBe(403);
     expect((await post(wo.id, null, { status: "repairing" })).status).toBe(401);
     const unknown = await post(wo.id, "owner@quarry-road.example", { status: "on_fire" });
@@ -77,12 +72,12 @@ describe("POST /api/v1/work-orders/:id/status", () => {
     expect(malformed.status).toBe(400);
     expect(malformed.body.code).toBe("malformed_json");
     expect((await post("no-such-work-order", "owner@quarry-road.example", { status: "repairing" })).status).toBe(404);
-    expect((await workOrder(1046)).status).toBe("waiting_parts");
+    expect((await workOrderByNumber(1046)).status).toBe("waiting_parts");
   });
 
   it("Ready for pickup e-mails the account's approvers and viewers, linking to the fleet unit page", async () => {
-    mail.smtp().clear();
-    const wo = await workOrder(1042);
+    await mail.smtp().clear();
+    const wo = await workOrderByNumber(1042);
     const res = await post(wo.id, "writer@quarry-road.example", { status: "ready", note: "Keys at the front counter." });
     expect(res.status).toBe(200);
     const expected = ["supervisor@brennan-twp.example", "trustee@brennan-twp.example", "foreman@brennan-twp.example"];
@@ -93,15 +88,15 @@ describe("POST /api/v1/work-orders/:id/status", () => {
       expect(mail.text).toContain("Keys at the front counter.");
     }
     // The clerk pays invoices; pickup is not theirs.
-    expect(mail.smtp().messages.some((m) => m.to.includes("clerk@brennan-twp.example"))).toBe(false);
+    expect((await mail.smtp().messages()).some((m) => m.to.includes("clerk@brennan-twp.example"))).toBe(false);
   });
 
   it("releasing sets releasedAt and closes the visit: it cannot be moved again (409)", async () => {
-    const wo = await workOrder(1049);
+    const wo = await workOrderByNumber(1049);
     const released = await post(wo.id, "writer@quarry-road.example", { status: "released", note: "Picked up by the foreman." });
     expect(released.status).toBe(200);
     expect(typeof released.body.releasedAt).toBe("string");
-    const row = await workOrder(1049);
+    const row = await workOrderByNumber(1049);
     expect(row.status).toBe("released");
     expect(row.releasedAt).toBe(released.body.releasedAt);
 
@@ -115,7 +110,7 @@ describe("POST /api/v1/work-orders/:id/status", () => {
   });
 
   it("another account's unit is a 404 on the live visit read", async () => {
-    const wo = await workOrder(1044); // Bus 22, the school district's
+    const wo = await workOrderByNumber(1044); // Bus 22, the school district's
     const res = await call(visit, { path: `/api/v1/units/${wo.unitId}/visit`, params: { id: wo.unitId }, as: "supervisor@brennan-twp.example" });
     expect(res.status).toBe(404);
     expect(res.body.code).toBe("not_found");

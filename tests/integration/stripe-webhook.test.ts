@@ -13,33 +13,30 @@ import { getDb } from "@/db/client";
 import { recordManualPayment, resolveFlaggedPayment } from "@/db/queries/payments";
 import { accounts, auditLog, checkoutSessions, invoices, payments, webhookEvents, type Invoice } from "@/db/schema";
 import { resetEnvCache } from "@/lib/env";
-import { startFakeSmtp, type FakeSmtp } from "@/mocks/smtp/server";
 import { signatureHeader, startFakeStripe, type FakeStripe } from "@/mocks/stripe/server";
 import { call } from "./helpers/app";
 import { asUser } from "./helpers/billing";
 import { serveFetchHandler } from "./helpers/serve-fetch-handler";
 import { freePort } from "@/tests/support/ports";
+import { fileMailbox } from "./helpers/mail";
 
 const SECRET = "whsec_integration_test_secret";
 
 let fake: FakeStripe;
 let app: { url: string; close(): Promise<void> };
-let smtp: FakeSmtp;
+const smtp = fileMailbox();
 
 beforeAll(async () => {
-  smtp = await startFakeSmtp({ smtpPort: 0, httpPort: 0 });
   app = await serveFetchHandler((request) => webhook(request));
   fake = await startFakeStripe({ port: 0, webhookUrl: `${app.url}/api/webhooks/stripe`, webhookSecret: SECRET, retryDelaysMs: [50, 100] });
   delete process.env.STRIPE_SECRET_KEY;
   process.env.FAKE_STRIPE_PORT = String(fake.port);
   process.env.STRIPE_WEBHOOK_SECRET = SECRET;
-  process.env.SMTP_URL = `smtp://127.0.0.1:${smtp.smtpPort}`;
   resetEnvCache();
 });
 afterAll(async () => {
   await fake.close();
   await app.close();
-  await smtp.close();
 });
 
 async function unpaidInvoiceOf(accountName: string, skip: string[] = []): Promise<Invoice> {

@@ -9,14 +9,14 @@ import { askForMoreDiagnosisTime } from "@/db/queries/time-box-extension";
 import { clockOfGroup, loadBoxGroup, settleTimeBoxes } from "@/db/queries/time-box-stops";
 import { clockIn, clockOut } from "@/db/queries/time-clock";
 import { estimateLines, timeEntries } from "@/db/schema";
-import { deliverDueMail } from "@/lib/mail/worker";
-import { queueTimeBoxNotice } from "@/lib/notifications/time-box";
-import { checkTimeBoxes } from "@/lib/notifications/time-box-watch";
+import { deliverDueMail } from "@/lib/server/mail/worker";
+import { queueTimeBoxNotice } from "@/lib/server/notifications/time-box";
+import { checkTimeBoxes } from "@/lib/server/notifications/time-box-watch";
 import { sessionUser } from "./helpers/app";
-import { mailCatcherForFile } from "./helpers/fake-smtp";
+import { fileMailbox } from "./helpers/mail";
 import { lineByDescription, workOrderByNumber } from "./helpers/work-orders";
 
-const catcher = mailCatcherForFile();
+const mailbox = fileMailbox();
 
 const MIN = 60_000;
 const tech = () => sessionUser("tech@quarry-road.example");
@@ -67,15 +67,15 @@ describe("a running diagnosis clock and its time box", () => {
     const base = { rootLineId: line.id, workOrderId: wo.id, description: line.description, approvedMilli: 2000, techIds: [(await tech()).id] };
     await writeTx((tx) => queueTimeBoxNotice(tx, { ...base, kind: "warn", usedMs: 96 * MIN }));
     await deliverDueMail();
-    const warnTech = await catcher().waitFor((m) => m.subject.includes("80 % of the diagnosis time used") && m.to.includes("tech@quarry-road.example"));
-    await catcher().waitFor((m) => m.subject.includes("80 % of the diagnosis time used") && m.to.includes("writer@quarry-road.example"));
+    const warnTech = await mailbox.waitFor((m) => m.subject.includes("80 % of the diagnosis time used") && m.to.includes("tech@quarry-road.example"));
+    await mailbox.waitFor((m) => m.subject.includes("80 % of the diagnosis time used") && m.to.includes("writer@quarry-road.example"));
     expect(warnTech.text).toContain("1 h 36 min of the 2.0 h approved");
     expect(warnTech.text).toContain(`/work-orders/${wo.id}`);
     await writeTx((tx) => queueTimeBoxNotice(tx, { ...base, kind: "reached", usedMs: 120 * MIN }));
     await deliverDueMail();
-    await catcher().waitFor((m) => m.subject.includes("the clock stopped") && m.to.includes("tech@quarry-road.example"));
-    await catcher().waitFor((m) => m.subject.includes("the clock stopped") && m.to.includes("writer@quarry-road.example"));
-    const fleet = await catcher().waitFor((m) => m.subject.includes("the clock stopped") && m.to.includes("supervisor@brennan-twp.example"));
+    await mailbox.waitFor((m) => m.subject.includes("the clock stopped") && m.to.includes("tech@quarry-road.example"));
+    await mailbox.waitFor((m) => m.subject.includes("the clock stopped") && m.to.includes("writer@quarry-road.example"));
+    const fleet = await mailbox.waitFor((m) => m.subject.includes("the clock stopped") && m.to.includes("supervisor@brennan-twp.example"));
     expect(fleet.text).toContain(`/fleet/work-orders/${wo.id}`);
   });
 

@@ -4,7 +4,7 @@ import { redirect } from "next/navigation";
 import { AuthFrame } from "@/components/auth/auth-frame";
 import { SignInForm } from "@/components/auth/sign-in-form";
 import { needsSetup } from "@/db/queries/setup";
-import { currentUser } from "@/lib/auth/current-user";
+import { currentUser } from "@/lib/server/auth/current-user";
 import { safeNextPath } from "@/lib/http/safe-next";
 
 export const metadata: Metadata = { title: "Sign in" };

@@ -7,7 +7,7 @@ import { listUnits } from "@/db/queries/units";
 import { listOpenWorkOrders } from "@/db/queries/work-order-list";
 import { inputClass } from "@/components/forms/field";
 import { Button, ButtonLink } from "@/components/ui/button";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Your units" };

@@ -7,23 +7,25 @@ import { Card, CardTitle } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { hasAccounts } from "@/db/queries/accounts";
 import { listServiceRequests } from "@/db/queries/service-requests";
-import { listOpenWorkOrders } from "@/db/queries/work-order-list";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { floorLanes } from "@/db/queries/work-order-list";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Floor" };
 
 export default async function FloorPage() {
   const user = await requirePageRole(CAN.shopStaff);
-  const [initial, reports, anyAccount] = await Promise.all([
-    listOpenWorkOrders(user, { limit: 200 }),
+  const [floor, reports, anyAccount] = await Promise.all([
+    floorLanes(user, { mineFor: user.role === "tech" ? user.id : undefined }),
     listServiceRequests(user, { limit: 50, status: "open" }),
     hasAccounts(),
   ]);
   const canCheckIn = hasRole(user, CAN.manageAccounts);
+  // The board is drawn at request time (and again on each refresh): "late" is against this instant.
+  const renderedAt = new Date().getTime();
   return (
     <>
-      <PageHeader title="Floor" kicker={`${initial.workOrders.length} unit${initial.workOrders.length === 1 ? "" : "s"} in the shop`}>
+      <PageHeader title="Floor" kicker={`${floor.total} unit${floor.total === 1 ? "" : "s"} in the shop`}>
         {canCheckIn ? <ButtonLink href="/work-orders/new">Check a unit in</ButtonLink> : null}
       </PageHeader>
       {canCheckIn && !anyAccount ? (
@@ -51,7 +53,7 @@ export default async function FloorPage() {
           <ReportList rows={reports.serviceRequests} shop={canCheckIn} empty="" />
         </section>
       ) : null}
-      <FloorBoard initial={initial} userId={user.id} isTech={user.role === "tech"} />
+      <FloorBoard floor={floor} userId={user.id} isTech={user.role === "tech"} renderedAt={renderedAt} />
     </>
   );
 }

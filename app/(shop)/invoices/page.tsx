@@ -3,25 +3,32 @@ import Link from "next/link";
 import { InvoiceList } from "@/components/invoices/invoice-list";
 import { Card, CardTitle } from "@/components/ui/card";
 import { EmptyState } from "@/components/ui/empty-state";
+import { Pager } from "@/components/ui/pager";
 import { PageHeader } from "@/components/ui/page-header";
 import { readyToInvoice } from "@/db/queries/invoice-pages";
 import { listInvoices } from "@/db/queries/invoices";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
+import { decodeCursor, PAGE_SIZE } from "@/lib/http/pagination";
 import { PAYMENT_STATE_LABELS, type PaymentState } from "@/lib/invoices/balance";
 
 export const metadata: Metadata = { title: "Invoices" };
 
 const FILTERS: (PaymentState | "all")[] = ["all", "open", "partly_paid", "paid", "void"];
 
-export default async function ShopInvoicesPage({ searchParams }: { searchParams: Promise<{ state?: string }> }) {
+export default async function ShopInvoicesPage({ searchParams }: { searchParams: Promise<{ state?: string; cursor?: string; page?: string }> }) {
   const user = await requirePageRole(CAN.issueInvoices);
-  const { state } = await searchParams;
-  const filter = FILTERS.find((f) => f === state) ?? "all";
-  const status = filter === "partly_paid" ? "open" : filter === "all" ? undefined : filter;
-  const [{ invoices }, ready] = await Promise.all([listInvoices(user, { limit: 200, status }), readyToInvoice(user)]);
-  const shown = filter === "all" ? invoices : invoices.filter((i) => i.paymentState === filter);
+  const p = await searchParams;
+  const filter = FILTERS.find((f) => f === p.state) ?? "all";
+  const cursor = decodeCursor(p.cursor, 1) ? p.cursor : undefined;
+  // Open and part paid are both status "open": the query tells them apart, so every page is full.
+  const owing = filter === "open" || filter === "partly_paid" ? filter : undefined;
+  const status = filter === "paid" || filter === "void" ? filter : undefined;
+  const [{ invoices: shown, nextCursor }, ready] = await Promise.all([
+    listInvoices(user, { limit: PAGE_SIZE, status, paymentState: owing, cursor }),
+    readyToInvoice(user),
+  ]);
   return (
     <>
       <PageHeader title="Invoices" kicker="Billing" />
@@ -61,6 +68,7 @@ export default async function ShopInvoicesPage({ searchParams }: { searchParams:
         ) : (
           <InvoiceList invoices={shown} hrefFor={(id) => `/invoices/${id}`} showAccount timeZone={env().APP_TIME_ZONE} />
         )}
+        <Pager base="/invoices" label="Pages of invoices" params={{ state: filter === "all" ? undefined : filter, cursor, page: p.page }} nextCursor={nextCursor} />
       </Card>
     </>
   );

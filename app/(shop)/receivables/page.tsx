@@ -5,7 +5,7 @@ import { Card, CardTitle } from "@/components/ui/card";
 import { Money } from "@/components/ui/money";
 import { PageHeader } from "@/components/ui/page-header";
 import { receivables } from "@/db/queries/statement";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { formatDate } from "@/lib/format";
 import { AGEING_BUCKETS, AGEING_LABELS } from "@/lib/receivables/ageing";

@@ -7,7 +7,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { getDb } from "@/db/client";
 import { getShopSettings } from "@/db/queries/settings";
 import { laborRates } from "@/db/schema";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Shop settings" };

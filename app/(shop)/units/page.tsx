@@ -3,10 +3,11 @@ import Link from "next/link";
 import { SelectField, inputClass } from "@/components/forms/field";
 import { Button, ButtonLink } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
-import { Pager, UnitList } from "@/components/units/unit-list";
+import { Pager } from "@/components/ui/pager";
+import { UnitList } from "@/components/units/unit-list";
 import { accountChoices } from "@/db/queries/accounts";
 import { listUnits } from "@/db/queries/units";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { decodeCursor } from "@/lib/http/pagination";
 import { CAN, hasRole } from "@/lib/auth/policy";
 
@@ -17,7 +18,7 @@ const PAGE = 50;
 export default async function ShopUnitsPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
   const user = await requirePageRole(CAN.shopStaff);
   const p = await searchParams;
-  const params = { q: p.q?.slice(0, 100), accountId: p.accountId, inShop: p.inShop === "true" ? "true" : undefined, retired: p.retired === "true" ? "true" : undefined, cursor: decodeCursor(p.cursor, 2) ? p.cursor : undefined };
+  const params = { q: p.q?.slice(0, 100), accountId: p.accountId, inShop: p.inShop === "true" ? "true" : undefined, retired: p.retired === "true" ? "true" : undefined, cursor: decodeCursor(p.cursor, 2) ? p.cursor : undefined, page: p.page };
   const [accounts, result] = await Promise.all([
     accountChoices(),
     listUnits(user, { limit: PAGE, q: params.q, accountId: params.accountId, inShop: Boolean(params.inShop), retired: Boolean(params.retired), cursor: params.cursor }),

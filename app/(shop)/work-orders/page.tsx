@@ -5,11 +5,11 @@ import { Button, ButtonLink } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
 import { StatusPill } from "@/components/ui/status-pill";
-import { Pager } from "@/components/units/unit-list";
+import { Pager } from "@/components/ui/pager";
 import { accountChoices } from "@/db/queries/accounts";
 import { assignableStaff } from "@/db/queries/people";
 import { listOpenWorkOrders } from "@/db/queries/work-order-list";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { isCalendarDate } from "@/lib/dates";
 import { STATUS_LABELS, WORK_ORDER_STATUSES, type WorkOrderStatus } from "@/lib/domain";
@@ -32,6 +32,7 @@ export default async function WorkOrdersPage({ searchParams }: { searchParams: P
     openedFrom: date(p.openedFrom),
     openedTo: date(p.openedTo),
     cursor: decodeCursor(p.cursor, 1) ? p.cursor : undefined,
+    page: p.page,
   };
   const [accounts, staff, result] = await Promise.all([
     accountChoices(),

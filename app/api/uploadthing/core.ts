@@ -1,8 +1,8 @@
 import { createUploadthing, type FileRouter } from "uploadthing/server";
 import { z } from "zod";
-import { authoriseOccurrencePhotoUpload, authorisePhotoUpload } from "@/lib/uploads/authorise-upload";
+import { authoriseOccurrencePhotoUpload, authorisePhotoUpload } from "@/lib/server/uploads/authorise-upload";
 import { PHOTO_MAX_SIZE_LABEL, PHOTOS_PER_FINDING, PHOTOS_PER_OCCURRENCE } from "@/lib/uploads/photo-rules";
-import { storeUploadedPhoto } from "@/lib/uploads/store-photo";
+import { storeUploadedPhoto } from "@/lib/server/uploads/store-photo";
 
 const f = createUploadthing();
 

@@ -3,7 +3,7 @@
 import { useRef, useState } from "react";
 import { CameraIcon, UploadProblems, UploadProgress, contentRefusal, progressed, type InFlight } from "@/components/photos/upload-parts";
 import { buttonClass } from "@/components/ui/button";
-import type { PhotoUploadResult } from "@/lib/uploads/store-photo";
+import type { PhotoUploadResult } from "@/lib/server/uploads/store-photo";
 import { ACCEPTED_WORDS, PHOTO_ACCEPT, PHOTOS_PER_FINDING, refusalFor } from "@/lib/uploads/photo-rules";
 import { uploadFiles } from "./upload-client";
 

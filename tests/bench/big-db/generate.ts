@@ -15,7 +15,8 @@ import { performance } from "node:perf_hooks";
 import { createClient } from "@libsql/client";
 import { eq, sql } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/libsql";
-import { budgetUsedCents, currentFiscalYear } from "@/db/queries/estimate-context";
+import { budgetUsedCents, rebuildBudgetUse } from "@/db/queries/budget-use";
+import { currentFiscalYear } from "@/db/queries/estimate-context";
 import * as schema from "@/db/schema";
 import { env } from "@/lib/env";
 import { BulkWriter } from "./bulk";
@@ -137,6 +138,8 @@ export async function generateDatabase(url: string, scale: Scale, log: (line: st
     await client.execute({ sql: "UPDATE counters SET value = ? WHERE name = 'invoice'", args: [lastInvoice] });
     log(`  rows written in ${((performance.now() - started) / 1000).toFixed(1)} s`);
 
+    // The running budget totals, counted again over the history just written (the demo seed's are stale now).
+    await rebuildBudgetUse(db, new Date(now));
     // The demo keeps its own budgets; the big database's are set from what its history spent.
     if (scale === "big") await setBudgets(db, accounts, demo.township.id);
     await client.execute("PRAGMA journal_mode = WAL");

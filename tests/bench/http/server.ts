@@ -1,21 +1,14 @@
-import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import { spawnSync, type ChildProcess } from "node:child_process";
 import { existsSync, readdirSync, readFileSync, writeFileSync } from "node:fs";
-import { createServer } from "node:net";
 import path from "node:path";
 import { SMTPServer } from "smtp-server";
+import { startRunningNextServer } from "../../support/next-server";
+import { freePort } from "../../support/ports";
+
+export { freePort };
 
 export const ROOT = path.join(import.meta.dirname, "..", "..", "..");
 export const SECRET = "bench-secret-bench-secret-bench-secret!!";
-
-export function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      server.close(() => (typeof address === "object" && address ? resolve(address.port) : reject(new Error("no port"))));
-    });
-  });
-}
 
 /**
  * `next build` into its own directory. Next adds that directory's type
@@ -70,63 +63,28 @@ export interface AppServer {
 
 /** `next start` on one database file, mail to `smtpPort`; payments and uploads pointed at a closed port (no route here uses them). */
 export async function startApp(name: string, o: { distDir: string; dbFile: string; smtpPort: number }): Promise<AppServer> {
-  const port = await freePort();
   const closed = await freePort();
-  const baseUrl = `http://127.0.0.1:${port}`;
-  const child = spawn(process.execPath, [path.join(ROOT, "node_modules", "next", "dist", "bin", "next"), "start", "-p", String(port), "-H", "127.0.0.1"], {
-    cwd: ROOT,
-    env: {
-      ...process.env,
-      NODE_ENV: "production",
-      NEXT_DIST_DIR: o.distDir,
-      NEXT_TELEMETRY_DISABLED: "1",
-      DATABASE_URL: `file:${o.dbFile}`,
-      NEXTAUTH_URL: baseUrl,
-      NEXTAUTH_SECRET: SECRET,
-      SMTP_URL: `smtp://127.0.0.1:${o.smtpPort}`,
-      STRIPE_SECRET_KEY: "",
-      // A production server: no payment or upload service is reached here, so the fakes are named on purpose (lib/env.ts).
-      COTTER_USE_FAKE_STRIPE: "1",
-      COTTER_USE_FAKE_UPLOADTHING: "1",
-      STRIPE_WEBHOOK_SECRET: "whsec_bench_only",
-      FAKE_STRIPE_PORT: String(closed),
-      UPLOADTHING_TOKEN: "",
-      FAKE_UPLOADTHING_PORT: String(closed),
+  const server = await startRunningNextServer(
+    {
+      distDir: o.distDir,
+      env: {
+        DATABASE_URL: `file:${o.dbFile}`,
+        NEXTAUTH_SECRET: SECRET,
+        SMTP_URL: `smtp://127.0.0.1:${o.smtpPort}`,
+        STRIPE_SECRET_KEY: "",
+        // A production server: no payment or upload service is reached here, so the fakes are named on purpose (lib/env.ts).
+        COTTER_USE_FAKE_STRIPE: "1",
+        COTTER_USE_FAKE_UPLOADTHING: "1",
+        STRIPE_WEBHOOK_SECRET: "whsec_bench_only",
+        FAKE_STRIPE_PORT: String(closed),
+        UPLOADTHING_TOKEN: "",
+        FAKE_UPLOADTHING_PORT: String(closed),
+      },
     },
-    stdio: ["ignore", "ignore", "pipe"],
-  });
-  let errors = "";
-  child.stderr?.on("data", (d: Buffer) => {
-    errors = (errors + d.toString()).slice(-4_000);
-  });
-  await waitForHealth(baseUrl, child, () => errors);
-  const pid = nextServerPid(child.pid!);
-  return {
-    name,
-    baseUrl,
-    process: child,
-    rss: () => vmRss(pid),
-    stop: () =>
-      new Promise<void>((resolve) => {
-        if (child.exitCode !== null) return resolve();
-        child.once("exit", () => resolve());
-        child.kill("SIGTERM");
-      }),
-  };
-}
-
-async function waitForHealth(url: string, child: ChildProcess, errors: () => string, timeoutMs = 90_000): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    if (child.exitCode !== null) throw new Error(`next start exited with ${child.exitCode}:\n${errors()}`);
-    try {
-      if ((await fetch(`${url}/api/v1/health`)).ok) return;
-    } catch {
-      // not up yet
-    }
-    await new Promise((r) => setTimeout(r, 300));
-  }
-  throw new Error(`next start did not answer at ${url} within ${timeoutMs} ms`);
+    90_000,
+  );
+  const pid = nextServerPid(server.child.pid!);
+  return { name, baseUrl: server.url, process: server.child, rss: () => vmRss(pid), stop: () => server.stop() };
 }
 
 /** The process that serves requests: `next start` names it next-server; it may be a child of the one we started. */

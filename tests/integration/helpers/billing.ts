@@ -1,6 +1,6 @@
 import { eq } from "drizzle-orm";
 import { getDb } from "@/db/client";
-import { estimateLines, invoices, users, workOrders } from "@/db/schema";
+import { estimateLines, invoices, users } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import type { LineKind, LineState } from "@/lib/domain";
 import { userByEmail } from "./app";
@@ -9,12 +9,6 @@ import { userByEmail } from "./app";
 export async function asUser(email: string): Promise<SessionUser> {
   const u = await userByEmail(email);
   return { id: u.id, name: u.name, email: u.email, role: u.role, accountId: u.accountId, signingLimitCents: u.signingLimitCents, via: "session" };
-}
-
-export async function workOrderByNumber(number: number) {
-  const [wo] = await getDb().select().from(workOrders).where(eq(workOrders.number, number)).limit(1);
-  if (!wo) throw new Error(`no work order W-${number}`);
-  return wo;
 }
 
 export interface LineFixture {

@@ -1,6 +1,6 @@
 import { inflateSync } from "node:zlib";
 import { describe, expect, it } from "vitest";
-import { renderInvoicePdf, type InvoiceDocument } from "@/lib/pdf/invoice-pdf";
+import { renderInvoicePdf, type InvoiceDocument } from "@/lib/server/pdf/invoice-pdf";
 
 /**
  * Reads back the text pdfkit wrote: content streams are Flate-compressed

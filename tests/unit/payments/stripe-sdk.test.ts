@@ -1,5 +1,5 @@
 /**
- * lib/payments/stripe.ts against msw handlers standing in for the service's
+ * lib/server/payments/stripe.ts against msw handlers standing in for the service's
  * HTTP API. Request shape as the SDK sends it (stripe-node 23.1.0,
  * esm/utils.js: form-encoded, nested keys in brackets); signature as the SDK
  * verifies it (esm/Webhooks.js: HMAC-SHA256 of "<t>.<body>").
@@ -9,7 +9,7 @@ import { http, HttpResponse } from "msw";
 import { setupServer } from "msw/node";
 import { afterAll, afterEach, beforeAll, describe, expect, it } from "vitest";
 import { resetEnvCache } from "@/lib/env";
-import { createCheckoutSession, verifyWebhookEvent } from "@/lib/payments/stripe";
+import { createCheckoutSession, verifyWebhookEvent } from "@/lib/server/payments/stripe";
 
 const PORT = 12999;
 const seen: { url: string; auth: string | null; form: URLSearchParams }[] = [];

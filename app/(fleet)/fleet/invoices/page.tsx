@@ -4,25 +4,30 @@ import { PoNumberForm } from "@/components/invoices/po-number-form";
 import { Card, CardTitle } from "@/components/ui/card";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Money } from "@/components/ui/money";
+import { Pager } from "@/components/ui/pager";
 import { PageHeader } from "@/components/ui/page-header";
 import { waitingForPo } from "@/db/queries/invoice-pages";
-import { listInvoices } from "@/db/queries/invoices";
+import { listInvoices, openInvoices } from "@/db/queries/invoices";
 import { getAccountName } from "@/db/queries/settings";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
+import { decodeCursor, PAGE_SIZE } from "@/lib/http/pagination";
 
 export const metadata: Metadata = { title: "Invoices" };
 
-export default async function FleetInvoicesPage() {
+export default async function FleetInvoicesPage({ searchParams }: { searchParams: Promise<{ cursor?: string; page?: string }> }) {
   const user = await requirePageRole(CAN.pay);
-  const [{ invoices }, needPo, accountName] = await Promise.all([
-    listInvoices(user, { limit: 200 }),
+  const p = await searchParams;
+  const cursor = decodeCursor(p.cursor, 1) ? p.cursor : undefined;
+  // What is owed is every open invoice with a balance (bounded by what is unpaid, not by
+  // history); the paid and void ones are a paged list, newest first.
+  const [owing, { invoices: settled, nextCursor }, needPo, accountName] = await Promise.all([
+    openInvoices(user.accountId ?? ""),
+    listInvoices(user, { limit: PAGE_SIZE, settled: true, cursor }),
     hasRole(user, CAN.enterPoNumber) ? waitingForPo(user) : Promise.resolve([]),
     getAccountName(user.accountId ?? ""),
   ]);
-  const owing = invoices.filter((i) => i.paymentState === "open" || i.paymentState === "partly_paid");
-  const settled = invoices.filter((i) => !owing.includes(i));
   const due = owing.reduce((s, i) => s + i.balanceCents, 0);
   const timeZone = env().APP_TIME_ZONE;
   return (
@@ -58,13 +63,14 @@ export default async function FleetInvoicesPage() {
             <InvoiceList invoices={owing} hrefFor={(id) => `/fleet/invoices/${id}`} timeZone={timeZone} />
           )}
         </Card>
-        <Card>
-          <CardTitle>Paid and void</CardTitle>
+        <Card aria-labelledby="settled-title">
+          <CardTitle id="settled-title">Paid and void</CardTitle>
           {settled.length === 0 ? (
             <p className="text-ink-faint">None yet.</p>
           ) : (
             <InvoiceList invoices={settled} hrefFor={(id) => `/fleet/invoices/${id}`} timeZone={timeZone} />
           )}
+          <Pager base="/fleet/invoices" label="Pages of paid and void invoices" params={{ cursor, page: p.page }} nextCursor={nextCursor} hash="#settled-title" />
         </Card>
       </div>
     </>

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { MySignIn } from "@/components/people/my-sign-in";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Your sign-in" };

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { FleetWatchList } from "@/components/occurrences/fleet-watch-list";
 import { PageHeader } from "@/components/ui/page-header";
 import { getAccountName } from "@/db/queries/settings";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Occurrence log" };

@@ -2,9 +2,9 @@ import type { Metadata } from "next";
 import { ButtonLink } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
 import { ReportList } from "@/components/reports/report-list";
-import { Pager } from "@/components/units/unit-list";
+import { Pager } from "@/components/ui/pager";
 import { listServiceRequests } from "@/db/queries/service-requests";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { decodeCursor } from "@/lib/http/pagination";
 
@@ -21,7 +21,7 @@ export default async function FleetReportsPage({ searchParams }: { searchParams:
         <ButtonLink href="/fleet/reports/new">Report a defect</ButtonLink>
       </PageHeader>
       <ReportList rows={serviceRequests} shop={false} empty="No defect reports yet." />
-      <Pager base="/fleet/reports" params={{ cursor }} nextCursor={nextCursor} />
+      <Pager base="/fleet/reports" params={{ cursor, page: p.page }} nextCursor={nextCursor} />
     </>
   );
 }

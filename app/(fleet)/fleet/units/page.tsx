@@ -2,10 +2,11 @@ import type { Metadata } from "next";
 import { inputClass } from "@/components/forms/field";
 import { Button } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
-import { Pager, UnitList } from "@/components/units/unit-list";
+import { Pager } from "@/components/ui/pager";
+import { UnitList } from "@/components/units/unit-list";
 import { getAccountName } from "@/db/queries/settings";
 import { listUnits } from "@/db/queries/units";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { decodeCursor } from "@/lib/http/pagination";
 import { CAN } from "@/lib/auth/policy";
 
@@ -15,7 +16,7 @@ export const metadata: Metadata = { title: "Find a unit" };
 export default async function FleetUnitsPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
   const user = await requirePageRole(CAN.fleet);
   const p = await searchParams;
-  const params = { q: p.q?.slice(0, 100), inShop: p.inShop === "true" ? "true" : undefined, cursor: decodeCursor(p.cursor, 2) ? p.cursor : undefined };
+  const params = { q: p.q?.slice(0, 100), inShop: p.inShop === "true" ? "true" : undefined, cursor: decodeCursor(p.cursor, 2) ? p.cursor : undefined, page: p.page };
   const [accountName, result] = await Promise.all([
     getAccountName(user.accountId ?? ""),
     listUnits(user, { limit: 50, q: params.q, inShop: Boolean(params.inShop), cursor: params.cursor }),

@@ -14,7 +14,7 @@ import { Card, CardTitle } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { accountSettingsPage } from "@/db/queries/accounts";
 import { pendingInvitations } from "@/db/queries/invitations";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { ROLE_LABELS } from "@/lib/domain";
 

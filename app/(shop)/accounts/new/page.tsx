@@ -3,7 +3,7 @@ import { AccountForm } from "@/components/accounts/account-form";
 import { NEW_ACCOUNT_VALUES } from "@/components/accounts/overrun-shapes";
 import { Card } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "New fleet account" };

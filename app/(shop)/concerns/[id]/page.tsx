@@ -5,7 +5,7 @@ import { IntermittentConcernCard } from "@/components/occurrences/intermittent-c
 import { Card } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
 import { findConcern, openVisitOf } from "@/db/queries/intermittent-concerns";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { workOrderLabel } from "@/lib/domain";
 

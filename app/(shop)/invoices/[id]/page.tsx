@@ -11,7 +11,7 @@ import { buttonClass } from "@/components/ui/button";
 import { Card, CardTitle } from "@/components/ui/card";
 import { Money } from "@/components/ui/money";
 import { getInvoiceDetail } from "@/db/queries/invoices";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";

@@ -4,7 +4,7 @@ import { PrintButton } from "@/components/invoices/print-button";
 import { StatementView } from "@/components/invoices/statement-view";
 import { PageHeader } from "@/components/ui/page-header";
 import { accountStatement } from "@/db/queries/statement";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Account statement" };

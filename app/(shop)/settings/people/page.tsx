@@ -11,7 +11,7 @@ import { listPeople } from "@/db/queries/people";
 import { scopedTo } from "@/db/queries/scope";
 import { getShopSettings } from "@/db/queries/settings";
 import { accounts } from "@/db/schema";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { formatDateTime } from "@/lib/format";
 

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { ApiTokens } from "@/components/settings/api-tokens";
 import { PageHeader } from "@/components/ui/page-header";
 import { listMyTokens } from "@/db/queries/api-tokens";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "API tokens" };

@@ -12,21 +12,31 @@ import { UnitFacts } from "@/components/units/unit-facts";
 import { WorkOrderHistory } from "@/components/units/work-order-history";
 import { ChangeLog } from "@/components/accounts/change-log";
 import { ButtonLink } from "@/components/ui/button";
+import { Pager } from "@/components/ui/pager";
 import { auditTrail } from "@/db/queries/audit";
 import { getUnitDetail } from "@/db/queries/units";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { decodeCursor, PAGE_SIZE } from "@/lib/http/pagination";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { workOrderLabel } from "@/lib/domain";
 import { calendarDate } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Unit" };
 
-export default async function ShopUnitPage({ params }: { params: Promise<{ id: string }> }) {
+export default async function ShopUnitPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ id: string }>;
+  searchParams: Promise<{ cursor?: string; page?: string }>;
+}) {
   const user = await requirePageRole(CAN.shopStaff);
   const { id } = await params;
-  const detail = await getUnitDetail(user, id);
+  const sp = await searchParams;
+  const cursor = decodeCursor(sp.cursor, 2) ? sp.cursor : undefined;
+  const detail = await getUnitDetail(user, id, { visits: { limit: PAGE_SIZE, cursor } });
   if (!detail) notFound();
-  const { unit, openWorkOrder, readings, history, deferred } = detail;
+  const { unit, openWorkOrder, readings, history, historyNextCursor, deferred } = detail;
   const canEdit = hasRole(user, CAN.manageAccounts);
   const changes = canEdit ? await auditTrail("unit", unit.id) : [];
   return (
@@ -57,9 +67,10 @@ export default async function ShopUnitPage({ params }: { params: Promise<{ id: s
             </Card>
           ) : null}
           <UnitIntermittentConcerns unitId={unit.id} />
-          <Card>
-            <CardTitle>Visits</CardTitle>
+          <Card aria-labelledby="visits">
+            <CardTitle id="visits">Visits</CardTitle>
             <WorkOrderHistory rows={history} hrefFor={(woId) => `/work-orders/${woId}`} />
+            <Pager base={`/units/${unit.id}`} label="Pages of visits" params={{ cursor, page: sp.page }} nextCursor={historyNextCursor} hash="#visits" />
           </Card>
         </div>
         <div className="flex flex-col gap-4">

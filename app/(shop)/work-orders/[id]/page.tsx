@@ -16,7 +16,7 @@ import { ConcernEditor } from "@/components/visits/concern-editor";
 import { VisitDetailsForm } from "@/components/visits/visit-details-form";
 import { assignableStaff } from "@/db/queries/people";
 import { loadShopWorkOrderPage } from "@/db/queries/shop-work-order-page";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { toLocalDateTimeInput } from "@/lib/dates";
 import { env } from "@/lib/env";

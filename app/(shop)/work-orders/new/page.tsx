@@ -14,7 +14,7 @@ import { getServiceRequest } from "@/db/queries/service-requests";
 import { deferredOffers } from "@/db/queries/shop-work-order-page";
 import { getUnitDetail, listUnits } from "@/db/queries/units";
 import { accounts } from "@/db/schema";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { workOrderLabel } from "@/lib/domain";
 import { defectComplaint } from "@/lib/service-requests";

@@ -1,7 +1,7 @@
 import { createAccount } from "@/db/queries/account-writes";
 import { getAccountForApi, listAccountsForApi } from "@/db/queries/accounts";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
+import { apiRoute } from "@/lib/server/http/api-route";
 import { accountCreateApiInput } from "@/lib/validation/account";
 import { accountListQuery } from "@/lib/validation/api-queries";
 

@@ -1,7 +1,7 @@
 import { pendingInvitations } from "@/db/queries/invitations";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
-import { inviteWithMail } from "@/lib/notifications/people";
+import { apiRoute } from "@/lib/server/http/api-route";
+import { inviteWithMail } from "@/lib/server/notifications/people";
 import { invitationListQuery } from "@/lib/validation/api-queries";
 import { invitationApiInput } from "@/lib/validation/people";
 

@@ -1,6 +1,6 @@
 import { listInvoices } from "@/db/queries/invoices";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
+import { apiRoute } from "@/lib/server/http/api-route";
 import { invoiceListQuery } from "@/lib/validation/api-queries";
 
 export const dynamic = "force-dynamic";

@@ -1,5 +1,5 @@
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
+import { apiRoute } from "@/lib/server/http/api-route";
 
 export const dynamic = "force-dynamic";
 

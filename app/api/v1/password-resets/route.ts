@@ -1,5 +1,5 @@
-import { publicRoute } from "@/lib/http/api-route";
-import { requestResetWithMail } from "@/lib/notifications/people";
+import { publicRoute } from "@/lib/server/http/api-route";
+import { requestResetWithMail } from "@/lib/server/notifications/people";
 import { passwordResetRequestInput } from "@/lib/validation/people";
 
 export const dynamic = "force-dynamic";

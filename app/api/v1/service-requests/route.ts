@@ -1,6 +1,6 @@
 import { listServiceRequests } from "@/db/queries/service-requests";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
+import { apiRoute } from "@/lib/server/http/api-route";
 import { serviceRequestListQuery } from "@/lib/validation/api-queries";
 
 export const dynamic = "force-dynamic";

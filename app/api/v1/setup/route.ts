@@ -1,5 +1,5 @@
 import { runFirstSetup } from "@/db/queries/setup";
-import { publicRoute } from "@/lib/http/api-route";
+import { publicRoute } from "@/lib/server/http/api-route";
 import { setupApiInput } from "@/lib/validation/setup";
 
 export const dynamic = "force-dynamic";

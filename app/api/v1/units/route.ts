@@ -1,7 +1,7 @@
 import { createUnit } from "@/db/queries/unit-writes";
 import { listUnits } from "@/db/queries/units";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
+import { apiRoute } from "@/lib/server/http/api-route";
 import { unitListQuery } from "@/lib/validation/api-queries";
 import { unitCreateInput } from "@/lib/validation/unit";
 

@@ -1,8 +1,8 @@
 import { checkIn } from "@/db/queries/check-in";
 import { listOpenWorkOrders } from "@/db/queries/work-order-list";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
-import { checkedInNotice } from "@/lib/notifications/visits";
+import { apiRoute } from "@/lib/server/http/api-route";
+import { checkedInNotice } from "@/lib/server/notifications/visits";
 import { workOrderListQuery } from "@/lib/validation/api-queries";
 import { checkInInput } from "@/lib/validation/visit";
 

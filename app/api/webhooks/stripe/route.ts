@@ -1,9 +1,9 @@
 import { applyStripeEvent } from "@/db/queries/stripe-events";
-import { errorResponse } from "@/lib/http/api-route";
+import { errorResponse } from "@/lib/server/http/api-route";
 import { HttpError, problemResponse } from "@/lib/http/problem";
-import { readUpTo } from "@/lib/http/read-body";
-import { queuePaymentFlagged, queuePaymentReceived } from "@/lib/mail/invoice-notices";
-import { verifyWebhookEvent, type Stripe } from "@/lib/payments/stripe";
+import { readUpTo } from "@/lib/server/http/read-body";
+import { queuePaymentFlagged, queuePaymentReceived } from "@/lib/server/notifications/invoices";
+import { verifyWebhookEvent, type Stripe } from "@/lib/server/payments/stripe";
 
 export const dynamic = "force-dynamic";
 

@@ -7,7 +7,7 @@ import { PrintButton } from "@/components/invoices/print-button";
 import { buttonClass } from "@/components/ui/button";
 import { latestCheckout } from "@/db/queries/checkout";
 import { getInvoiceDetail } from "@/db/queries/invoices";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN, hasRole } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 

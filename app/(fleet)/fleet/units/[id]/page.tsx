@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { LiveVisit, LiveVisitStatus } from "@/components/fleet/live-visit";
 import { FleetWatchList } from "@/components/occurrences/fleet-watch-list";
+import { Pager } from "@/components/ui/pager";
 import { ButtonLink } from "@/components/ui/button";
 import { Card, CardTitle } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
@@ -11,19 +12,28 @@ import { UnitFacts } from "@/components/units/unit-facts";
 import { WorkOrderHistory } from "@/components/units/work-order-history";
 import { currentVisit } from "@/db/queries/finding-reads";
 import { getUnitDetail } from "@/db/queries/units";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { decodeCursor, PAGE_SIZE } from "@/lib/http/pagination";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { calendarDate } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Unit" };
 
-export default async function FleetUnitPage({ params }: { params: Promise<{ id: string }> }) {
+export default async function FleetUnitPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ id: string }>;
+  searchParams: Promise<{ cursor?: string; page?: string }>;
+}) {
   const user = await requirePageRole(CAN.fleet);
   const { id } = await params;
+  const sp = await searchParams;
+  const cursor = decodeCursor(sp.cursor, 2) ? sp.cursor : undefined;
   // Scoped to the user's account: another account's unit is simply not found.
-  const [detail, visit] = await Promise.all([getUnitDetail(user, id), currentVisit(user, id)]);
+  const [detail, visit] = await Promise.all([getUnitDetail(user, id, { visits: { limit: PAGE_SIZE, cursor } }), currentVisit(user, id)]);
   if (!detail || !visit) notFound();
-  const { unit, openWorkOrder, readings, history, deferred } = detail;
+  const { unit, openWorkOrder, readings, history, historyNextCursor, deferred } = detail;
   return (
     <>
       <PageHeader title={`Unit ${unit.unitNumber}`} kicker={unit.description}>
@@ -45,9 +55,10 @@ export default async function FleetUnitPage({ params }: { params: Promise<{ id: 
         <div className="flex flex-col gap-4">
           <LiveVisit unitId={unit.id} initial={visit} />
           <FleetWatchList user={user} unitId={unit.id} compact />
-          <Card>
-            <CardTitle>Visits</CardTitle>
+          <Card aria-labelledby="visits">
+            <CardTitle id="visits">Visits</CardTitle>
             <WorkOrderHistory rows={history} hrefFor={(woId) => `/fleet/work-orders/${woId}`} />
+            <Pager base={`/fleet/units/${unit.id}`} label="Pages of visits" params={{ cursor, page: sp.page }} nextCursor={historyNextCursor} hash="#visits" />
           </Card>
           <Card>
             <CardTitle>Deferred work</CardTitle>

@@ -6,7 +6,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { CsvImport } from "@/components/units/csv-import";
 import { getDb } from "@/db/client";
 import { accounts } from "@/db/schema";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { CSV_FIELDS } from "@/lib/units/csv-import";
 

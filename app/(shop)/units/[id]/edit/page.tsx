@@ -5,7 +5,7 @@ import { PageHeader } from "@/components/ui/page-header";
 import { RetireUnitButton } from "@/components/units/retire-unit-button";
 import { UnitForm } from "@/components/units/unit-form";
 import { getUnitDetail } from "@/db/queries/units";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "Edit unit" };

@@ -1,7 +1,7 @@
 import { updateAccount } from "@/db/queries/account-writes";
 import { getAccountForApi } from "@/db/queries/accounts";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { notFound } from "@/lib/http/problem";
 import { API_NAMES, accountPatchApiInput } from "@/lib/validation/account";
 

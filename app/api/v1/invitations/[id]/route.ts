@@ -1,6 +1,6 @@
 import { withdrawInvitation } from "@/db/queries/invitations";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 
 export const dynamic = "force-dynamic";
 

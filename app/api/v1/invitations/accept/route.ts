@@ -1,5 +1,5 @@
 import { acceptInvitation } from "@/db/queries/invitations";
-import { publicRoute } from "@/lib/http/api-route";
+import { publicRoute } from "@/lib/server/http/api-route";
 import { acceptInvitationInput } from "@/lib/validation/people";
 
 export const dynamic = "force-dynamic";

@@ -1,6 +1,6 @@
 import { getInvoiceDetail } from "@/db/queries/invoices";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { notFound } from "@/lib/http/problem";
 
 export const dynamic = "force-dynamic";

@@ -1,6 +1,6 @@
 import { changeOwnPassword } from "@/db/queries/passwords";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
+import { apiRoute } from "@/lib/server/http/api-route";
 import { changePasswordInput } from "@/lib/validation/people";
 
 export const dynamic = "force-dynamic";

@@ -1,5 +1,5 @@
 import { completePasswordReset } from "@/db/queries/passwords";
-import { publicRoute } from "@/lib/http/api-route";
+import { publicRoute } from "@/lib/server/http/api-route";
 import { passwordResetCompleteInput } from "@/lib/validation/people";
 
 export const dynamic = "force-dynamic";

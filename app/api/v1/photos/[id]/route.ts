@@ -1,6 +1,6 @@
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
-import { photoResponse } from "@/lib/uploads/serve-photo";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
+import { photoResponse } from "@/lib/server/uploads/serve-photo";
 
 export const dynamic = "force-dynamic";
 

@@ -1,9 +1,10 @@
 import { updateUnit } from "@/db/queries/unit-writes";
 import { getUnitDetail } from "@/db/queries/units";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { notFound } from "@/lib/http/problem";
-import { lineAmountCents } from "@/lib/money";
+import { lineFieldsOut } from "@/lib/records/estimate-line";
+import { workOrderOut } from "@/lib/records/work-order";
 import { unitPatchInput } from "@/lib/validation/unit";
 
 export const dynamic = "force-dynamic";
@@ -17,18 +18,8 @@ export const GET = apiRoute({ roles: CAN.anyone, params: idParams }, async ({ us
     status: openWorkOrder?.status ?? (history.length > 0 ? "released" : null),
     workOrderId: openWorkOrder?.id ?? null,
     meterReadings: readings,
-    deferredLines: deferred.map((l) => ({
-      id: l.id,
-      workOrderId: l.workOrderId,
-      kind: l.kind,
-      description: l.description,
-      quantity: l.quantityMilli / 1000,
-      unitPriceCents: l.unitPriceCents,
-      amountCents: lineAmountCents(l.quantityMilli, l.unitPriceCents),
-      state: l.state,
-      updatedAt: l.updatedAt,
-    })),
-    workOrders: history,
+    deferredLines: deferred.map((l) => ({ ...lineFieldsOut(l), workOrderId: l.workOrderId, updatedAt: l.updatedAt })),
+    workOrders: history.map((w) => ({ ...w, ...workOrderOut({ ...w, unitId: unit.id, accountId: unit.accountId }) })),
   };
 });
 

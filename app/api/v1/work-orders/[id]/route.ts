@@ -1,7 +1,7 @@
 import { updateVisit } from "@/db/queries/visit-writes";
 import { workOrderView } from "@/db/queries/work-order-view";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { notFound } from "@/lib/http/problem";
 import { visitPatchInput } from "@/lib/validation/visit";
 

@@ -4,7 +4,7 @@ import { notFound } from "next/navigation";
 import { FindingForm } from "@/components/findings/form/finding-form";
 import { EmptyState } from "@/components/ui/empty-state";
 import { findWorkOrder, loadConcerns } from "@/db/queries/work-order-detail";
-import { requirePageRole } from "@/lib/auth/page-access";
+import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { workOrderLabel } from "@/lib/domain";
 

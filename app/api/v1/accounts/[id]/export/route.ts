@@ -1,6 +1,6 @@
 import { exportRows } from "@/db/queries/statement";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { notFound } from "@/lib/http/problem";
 import { toCsv } from "@/lib/invoices/csv";
 import { exportQuery } from "@/lib/validation/invoices";

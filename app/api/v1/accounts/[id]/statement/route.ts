@@ -1,6 +1,6 @@
 import { accountStatement } from "@/db/queries/statement";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { notFound } from "@/lib/http/problem";
 import { periodQuery } from "@/lib/validation/invoices";
 

@@ -1,6 +1,6 @@
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
-import { resendWithMail } from "@/lib/notifications/people";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
+import { resendWithMail } from "@/lib/server/notifications/people";
 
 export const dynamic = "force-dynamic";
 

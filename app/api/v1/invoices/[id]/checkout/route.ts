@@ -1,6 +1,6 @@
-import { startCheckout } from "@/db/queries/checkout";
+import { startCheckout } from "@/lib/server/payments/checkout";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 
 export const dynamic = "force-dynamic";
 

@@ -1,9 +1,9 @@
 import { getInvoiceDetail } from "@/db/queries/invoices";
 import { CAN } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { notFound } from "@/lib/http/problem";
-import { renderInvoicePdf } from "@/lib/pdf/invoice-pdf";
+import { renderInvoicePdf } from "@/lib/server/pdf/invoice-pdf";
 
 export const dynamic = "force-dynamic";
 

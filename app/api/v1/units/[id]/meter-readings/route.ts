@@ -1,6 +1,6 @@
 import { addMeterReading } from "@/db/queries/meters";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { meterReadingInput } from "@/lib/validation/meter-reading";
 
 export const dynamic = "force-dynamic";

@@ -1,7 +1,7 @@
 import { addOccurrence, getOccurrence, listOccurrences } from "@/db/queries/occurrences";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
-import { queueOccurrenceNotice } from "@/lib/mail/notify-occurrence";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
+import { queueOccurrenceNotice } from "@/lib/server/notifications/occurrences";
 import { occurrenceListQuery } from "@/lib/validation/api-queries";
 import { occurrenceInput } from "@/lib/validation/occurrence";
 

@@ -1,7 +1,7 @@
 import { createServiceRequest } from "@/db/queries/service-requests";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
-import { defectReportedNotice } from "@/lib/notifications/visits";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
+import { defectReportedNotice } from "@/lib/server/notifications/visits";
 import { serviceRequestInput } from "@/lib/validation/service-request";
 
 export const dynamic = "force-dynamic";

@@ -1,6 +1,6 @@
 import { addConcern } from "@/db/queries/visit-writes";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { concernAddInput } from "@/lib/validation/visit";
 
 export const dynamic = "force-dynamic";

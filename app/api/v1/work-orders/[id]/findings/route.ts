@@ -3,7 +3,7 @@ import { findFinding, findingsForWorkOrder } from "@/db/queries/finding-reads";
 import { CAN } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
-import { apiRoute, idParams } from "@/lib/http/api-route";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
 import { notFound } from "@/lib/http/problem";
 import { findingInput } from "@/lib/validation/finding";
 

@@ -1,8 +1,8 @@
 import { moveStatus } from "@/db/queries/status-writes";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
-import { queueUnitReadyNotice } from "@/lib/mail/unit-ready-notice";
-import { defectsFixedNotice } from "@/lib/notifications/visits";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
+import { queueUnitReadyNotice } from "@/lib/server/notifications/unit-ready";
+import { defectsFixedNotice } from "@/lib/server/notifications/visits";
 import { statusMoveInput } from "@/lib/validation/status";
 
 export const dynamic = "force-dynamic";

@@ -1,7 +1,7 @@
 import { importUnits } from "@/db/queries/unit-writes";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute, idParams } from "@/lib/http/api-route";
-import { readTextBody } from "@/lib/http/read-body";
+import { apiRoute, idParams } from "@/lib/server/http/api-route";
+import { readTextBody } from "@/lib/server/http/read-body";
 
 export const dynamic = "force-dynamic";
 

@@ -1,6 +1,6 @@
 import { getOccurrence, updateOccurrence } from "@/db/queries/occurrences";
 import { CAN } from "@/lib/auth/policy";
-import { apiRoute } from "@/lib/http/api-route";
+import { apiRoute } from "@/lib/server/http/api-route";
 import { notFound } from "@/lib/http/problem";
 import { occurrenceParams as params } from "@/lib/validation/api-queries";
 import { occurrencePatch } from "@/lib/validation/occurrence";

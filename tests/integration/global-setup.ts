@@ -1,0 +1,43 @@
+import { mkdirSync, rmSync } from "node:fs";
+import path from "node:path";
+import { createClient } from "@libsql/client";
+import type { TestProject } from "vitest/node";
+import { migrateDatabase } from "@/db/migrate";
+import { seedDatabase } from "@/db/seed";
+import { startFakeSmtp } from "@/mocks/smtp/server";
+import "@/tests/support/mailbox";
+
+declare module "vitest" {
+  export interface ProvidedContext {
+    /** A migrated database with the demo data, made once per run; each file copies it (setup.ts). */
+    templateDb: string;
+  }
+}
+
+/**
+ * Once per run: migrate and seed one template database (about a second and a
+ * half each time, formerly paid by every file) and start one mail catcher.
+ */
+export default async function setup(project: TestProject) {
+  const dir = path.join(import.meta.dirname, "..", ".artifacts", "integration");
+  mkdirSync(dir, { recursive: true });
+  const file = path.join(dir, `template-${process.pid}-${Date.now()}.db`);
+  const url = `file:${file}`;
+  await migrateDatabase(url);
+  // Demo photos need the upload service and take seconds to draw; tests that need photos upload their own.
+  await seedDatabase(url, { photos: false });
+  // Fold the write-ahead log into the file, so copying the one file copies everything.
+  const client = createClient({ url });
+  await client.execute("PRAGMA wal_checkpoint(TRUNCATE)");
+  client.close();
+
+  // Room for every file's mail in one run; the demo's catcher keeps fewer.
+  const smtp = await startFakeSmtp({ keep: 20_000 });
+  project.provide("templateDb", file);
+  project.provide("mailCatcher", { smtpPort: smtp.smtpPort, httpUrl: `http://127.0.0.1:${smtp.httpPort}` });
+
+  return async () => {
+    await smtp.close();
+    for (const suffix of ["", "-wal", "-shm"]) rmSync(`${file}${suffix}`, { force: true });
+  };
+}
