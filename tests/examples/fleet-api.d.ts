@@ -1326,6 +1326,248 @@ export interface components {
             /** @constant */
             status: "ok";
         };
+        LineDecision: {
+            by: string;
+            /** Format: date-time */
+            at: string;
+            decision: components["schemas"]["Decision"];
+            amountCents: number;
+            note: string;
+            /** @description The line's version the decision was made on. */
+            lineVersion: number;
+        };
+        EstimateLine: {
+            id: string;
+            kind: components["schemas"]["LineKind"];
+            description: string;
+            /** @description Hours for labour (one decimal), pieces otherwise. */
+            quantity: number;
+            unitPriceCents: number;
+            /** @description Quantity × unit price; the core charge apart. */
+            amountCents: number;
+            taxable: boolean;
+            coreChargeCents: number;
+            /** @description What the core costs if it does not come back. */
+            coreTotalCents: number;
+            coreReturnedAt: string | null;
+            state: components["schemas"]["LineState"];
+            /** @description Send as `expectedVersion` with a decision. */
+            version: number;
+            findingId: string | null;
+            concernId: string | null;
+            partNumber: string;
+            isDiagnosis: boolean;
+            /** @description Approved under the account's standing authorisation. */
+            byStanding: boolean;
+            reopenReason: string | null;
+            deferredFromLineId: string | null;
+            extendsLineId: string | null;
+            decision: components["schemas"]["LineDecision"] | null;
+        };
+        Limits: {
+            standingAuthorisationCents: number;
+            /** @description The caller's own; null for staff. */
+            signingLimitCents: number | null;
+            /** @description The caller's approvals on this work order; null for staff. */
+            signingUsedCents: number | null;
+            budgetCents: number | null;
+            budgetRemainingCents: number | null;
+            budgetUsedCents: number;
+            fiscalYear: string;
+            overrunPercent: number;
+            overrunCapCents: number | null;
+        };
+        Concern: {
+            id: string;
+            position: number;
+            complaint: string;
+            cause: string;
+            correction: string;
+            intermittent: boolean;
+            recordHint: string;
+            closedAt: string | null;
+            conclusion: string;
+        };
+        WorkOrderDetail: {
+            id: string;
+            number: number;
+            /** @description As people read it: "W-1042". */
+            label: string;
+            unitId: string;
+            accountId: string;
+            status: components["schemas"]["WorkOrderStatus"];
+            title: string;
+            promisedAt: string | null;
+            /** Format: date-time */
+            updatedAt: string;
+            poNumber: string | null;
+            unitNumber: string;
+            unitDescription: string;
+            accountName: string;
+            technicianName: string | null;
+            clockedTechName: string | null;
+            assignedTechId: string | null;
+            timeline: components["schemas"]["TimelineEntry"][];
+            concerns: components["schemas"]["Concern"][];
+            findings: components["schemas"]["Finding"][];
+            lines: components["schemas"]["EstimateLine"][];
+            totals: components["schemas"]["Totals"];
+            estimateTotals: {
+                ifAllPendingApprovedCents: number;
+                coreCents: number;
+                draftCents: number;
+            };
+            limits: components["schemas"]["Limits"];
+            decisionLog: {
+                lineId: string;
+                decision: components["schemas"]["Decision"];
+                by: string;
+                /** Format: date-time */
+                at: string;
+                amountCents: number;
+                lineVersion: number;
+                note: string;
+            }[];
+        };
+        WorkOrderSummary: {
+            id: string;
+            number: number;
+            /** @description As people read it: "W-1042". */
+            label: string;
+            unitId: string;
+            accountId: string;
+            status: components["schemas"]["WorkOrderStatus"];
+            title: string;
+            promisedAt: string | null;
+            /** Format: date-time */
+            updatedAt: string;
+            /** Format: date-time */
+            openedAt: string;
+            releasedAt: string | null;
+            unitNumber: string;
+            unitDescription: string;
+            accountName: string;
+            technicianId: string | null;
+            technicianName: string | null;
+            clockedTechName: string | null;
+            lastNote: string;
+            outOfService: boolean;
+        };
+        WorkOrderList: {
+            workOrders: components["schemas"]["WorkOrderSummary"][];
+            /** @description Pass as `?cursor=` for the next page; null on the last page. */
+            nextCursor: string | null;
+        };
+        CheckedInWorkOrder: {
+            id: string;
+            number: number;
+            unitId: string;
+            accountId: string;
+            status: components["schemas"]["WorkOrderStatus"];
+            title: string;
+            assignedTechId: string | null;
+            promisedAt: string | null;
+            poNumber: string | null;
+            /** Format: date-time */
+            openedAt: string;
+            sentForApprovalAt: string | null;
+            releasedAt: string | null;
+            createdBy: string | null;
+            /** Format: date-time */
+            createdAt: string;
+            /** Format: date-time */
+            updatedAt: string;
+            /** @description As people read it: "W-1042". */
+            label: string;
+            concerns: {
+                complaint: string;
+            }[];
+            serviceRequestId: string | null;
+        };
+        MovedWorkOrder: {
+            id: string;
+            number: number;
+            /** @description As people read it: "W-1042". */
+            label: string;
+            unitId: string;
+            accountId: string;
+            status: components["schemas"]["WorkOrderStatus"];
+            title: string;
+            promisedAt: string | null;
+            /** Format: date-time */
+            updatedAt: string;
+            releasedAt: string | null;
+            lastNote: string;
+            event: {
+                id: string;
+                status: components["schemas"]["WorkOrderStatus"];
+                note: string;
+                /** Format: date-time */
+                at: string;
+                by: string;
+            };
+        };
+        LineDecisionResult: {
+            line: components["schemas"]["EstimateLine"];
+            totals: components["schemas"]["Totals"];
+        };
+        BatchDecisionResult: {
+            lines: {
+                id: string;
+                state: components["schemas"]["LineState"];
+                version: number;
+                decision: components["schemas"]["Decision"];
+                amountCents: number;
+                line: components["schemas"]["EstimateLine"];
+            }[];
+            totals: components["schemas"]["Totals"];
+        };
+        AddedConcern: {
+            id: string;
+            complaint: string;
+            cause: string;
+            correction: string;
+            position: number;
+        };
+        UpdatedConcern: {
+            id: string;
+            workOrderId: string | null;
+            cause: string;
+            correction: string;
+            /** @description How many fields changed. */
+            changed: number;
+        };
+        WorkOrderFindings: {
+            workOrderId: string;
+            findings: components["schemas"]["Finding"][];
+        };
+        CreatedFinding: {
+            id: string;
+            concernId: string | null;
+            title: string;
+            severity: components["schemas"]["Severity"];
+            noteMarkdown: string;
+            /** Format: date-time */
+            createdAt: string;
+            createdBy: string | null;
+            photos: components["schemas"]["PhotoRef"][];
+            readings: components["schemas"]["Reading"][];
+            workOrderId: string;
+            proposedLineIds: string[];
+        };
+        FindingDetail: {
+            id: string;
+            concernId: string | null;
+            title: string;
+            severity: components["schemas"]["Severity"];
+            noteMarkdown: string;
+            /** Format: date-time */
+            createdAt: string;
+            createdBy: string | null;
+            photos: components["schemas"]["PhotoRef"][];
+            readings: components["schemas"]["Reading"][];
+            workOrderId: string;
+        };
         UnitSummary: {
             id: string;
             unitNumber: string;
@@ -1372,13 +1614,31 @@ export interface components {
         };
         DeferredLine: {
             id: string;
-            workOrderId: string;
             kind: components["schemas"]["LineKind"];
             description: string;
+            /** @description Hours for labour (one decimal), pieces otherwise. */
             quantity: number;
             unitPriceCents: number;
+            /** @description Quantity × unit price; the core charge apart. */
             amountCents: number;
+            taxable: boolean;
+            coreChargeCents: number;
+            /** @description What the core costs if it does not come back. */
+            coreTotalCents: number;
+            coreReturnedAt: string | null;
             state: components["schemas"]["LineState"];
+            /** @description Send as `expectedVersion` with a decision. */
+            version: number;
+            findingId: string | null;
+            concernId: string | null;
+            partNumber: string;
+            isDiagnosis: boolean;
+            /** @description Approved under the account's standing authorisation. */
+            byStanding: boolean;
+            reopenReason: string | null;
+            deferredFromLineId: string | null;
+            extendsLineId: string | null;
+            workOrderId: string;
             /** Format: date-time */
             updatedAt: string;
         };
@@ -1415,14 +1675,18 @@ export interface components {
             workOrders: {
                 id: string;
                 number: number;
+                /** @description As people read it: "W-1042". */
+                label: string;
+                unitId: string;
+                accountId: string;
                 status: components["schemas"]["WorkOrderStatus"];
                 title: string;
-                /** Format: date-time */
-                openedAt: string;
-                releasedAt: string | null;
                 promisedAt: string | null;
                 /** Format: date-time */
                 updatedAt: string;
+                /** Format: date-time */
+                openedAt: string;
+                releasedAt: string | null;
                 technicianName: string | null;
             }[];
         };
@@ -1553,261 +1817,6 @@ export interface components {
             serviceRequests: components["schemas"]["ServiceRequestSummary"][];
             /** @description Pass as `?cursor=` for the next page; null on the last page. */
             nextCursor: string | null;
-        };
-        EstimateLine: {
-            id: string;
-            kind: components["schemas"]["LineKind"];
-            description: string;
-            /** @description Hours for labour (one decimal), pieces otherwise. */
-            quantity: number;
-            unitPriceCents: number;
-            amountCents: number;
-            taxable: boolean;
-            coreChargeCents: number;
-            coreTotalCents: number;
-            coreReturnedAt: string | null;
-            state: components["schemas"]["LineState"];
-            /** @description Send as `expectedVersion` with a decision. */
-            version: number;
-            findingId: string | null;
-            concernId: string | null;
-            partNumber: string;
-            isDiagnosis: boolean;
-            /** @description Approved under the account's standing authorisation. */
-            byStanding: boolean;
-            reopenReason: string | null;
-            deferredFromLineId: string | null;
-            extendsLineId: string | null;
-            decision: {
-                by: string;
-                /** Format: date-time */
-                at: string;
-                decision: components["schemas"]["Decision"];
-                amountCents: number;
-                note: string;
-                lineVersion: number;
-            } | null;
-        };
-        Limits: {
-            standingAuthorisationCents: number;
-            /** @description The caller's own; null for staff. */
-            signingLimitCents: number | null;
-            /** @description The caller's approvals on this work order; null for staff. */
-            signingUsedCents: number | null;
-            budgetCents: number | null;
-            budgetRemainingCents: number | null;
-            budgetUsedCents: number;
-            fiscalYear: string;
-            overrunPercent: number;
-            overrunCapCents: number | null;
-        };
-        Concern: {
-            id: string;
-            position: number;
-            complaint: string;
-            cause: string;
-            correction: string;
-            intermittent: boolean;
-            recordHint: string;
-            closedAt: string | null;
-            conclusion: string;
-        };
-        WorkOrderDetail: {
-            id: string;
-            number: number;
-            label: string;
-            unitId: string;
-            accountId: string;
-            status: components["schemas"]["WorkOrderStatus"];
-            promisedAt: string | null;
-            /** Format: date-time */
-            updatedAt: string;
-            title: string;
-            poNumber: string | null;
-            unitNumber: string;
-            unitDescription: string;
-            accountName: string;
-            technicianName: string | null;
-            clockedTechName: string | null;
-            assignedTechId: string | null;
-            timeline: components["schemas"]["TimelineEntry"][];
-            concerns: components["schemas"]["Concern"][];
-            findings: components["schemas"]["Finding"][];
-            lines: components["schemas"]["EstimateLine"][];
-            totals: components["schemas"]["Totals"];
-            estimateTotals: {
-                ifAllPendingApprovedCents: number;
-                coreCents: number;
-                draftCents: number;
-            };
-            limits: components["schemas"]["Limits"];
-            decisionLog: {
-                lineId: string;
-                decision: components["schemas"]["Decision"];
-                by: string;
-                /** Format: date-time */
-                at: string;
-                amountCents: number;
-                lineVersion: number;
-                note: string;
-            }[];
-        };
-        WorkOrderSummary: {
-            id: string;
-            number: number;
-            label: string;
-            unitId: string;
-            accountId: string;
-            status: components["schemas"]["WorkOrderStatus"];
-            promisedAt: string | null;
-            /** Format: date-time */
-            openedAt: string;
-            releasedAt: string | null;
-            /** Format: date-time */
-            updatedAt: string;
-            title: string;
-            unitNumber: string;
-            unitDescription: string;
-            accountName: string;
-            technicianId: string | null;
-            technicianName: string | null;
-            clockedTechName: string | null;
-            lastNote: string;
-            outOfService: boolean;
-        };
-        WorkOrderList: {
-            workOrders: components["schemas"]["WorkOrderSummary"][];
-            /** @description Pass as `?cursor=` for the next page; null on the last page. */
-            nextCursor: string | null;
-        };
-        CheckedInWorkOrder: {
-            id: string;
-            number: number;
-            unitId: string;
-            accountId: string;
-            status: components["schemas"]["WorkOrderStatus"];
-            title: string;
-            assignedTechId: string | null;
-            promisedAt: string | null;
-            poNumber: string | null;
-            /** Format: date-time */
-            openedAt: string;
-            sentForApprovalAt: string | null;
-            releasedAt: string | null;
-            createdBy: string | null;
-            /** Format: date-time */
-            createdAt: string;
-            /** Format: date-time */
-            updatedAt: string;
-            label: string;
-            concerns: {
-                complaint: string;
-            }[];
-            serviceRequestId: string | null;
-        };
-        MovedWorkOrder: {
-            id: string;
-            number: number;
-            unitId: string;
-            accountId: string;
-            status: components["schemas"]["WorkOrderStatus"];
-            title: string;
-            promisedAt: string | null;
-            releasedAt: string | null;
-            /** Format: date-time */
-            updatedAt: string;
-            lastNote: string;
-            event: {
-                id: string;
-                status: components["schemas"]["WorkOrderStatus"];
-                note: string;
-                /** Format: date-time */
-                at: string;
-                by: string;
-            };
-        };
-        DecidedLine: {
-            id: string;
-            kind: components["schemas"]["LineKind"];
-            description: string;
-            quantity: number;
-            unitPriceCents: number;
-            amountCents: number;
-            taxable: boolean;
-            coreChargeCents: number;
-            state: components["schemas"]["LineState"];
-            version: number;
-            findingId: string | null;
-            decision: {
-                by: string;
-                /** Format: date-time */
-                at: string;
-                decision: components["schemas"]["Decision"];
-                amountCents: number;
-                note: string;
-            } | null;
-        } & {
-            [key: string]: unknown;
-        };
-        LineDecisionResult: {
-            line: components["schemas"]["DecidedLine"];
-            totals: components["schemas"]["Totals"];
-        };
-        BatchDecisionResult: {
-            lines: {
-                id: string;
-                state: components["schemas"]["LineState"];
-                version: number;
-                decision: components["schemas"]["Decision"];
-                amountCents: number;
-            }[];
-            totals: components["schemas"]["Totals"];
-        };
-        AddedConcern: {
-            id: string;
-            complaint: string;
-            cause: string;
-            correction: string;
-            position: number;
-        };
-        UpdatedConcern: {
-            id: string;
-            workOrderId: string | null;
-            cause: string;
-            correction: string;
-            /** @description How many fields changed. */
-            changed: number;
-        };
-        WorkOrderFindings: {
-            workOrderId: string;
-            findings: components["schemas"]["Finding"][];
-        };
-        CreatedFinding: {
-            id: string;
-            concernId: string | null;
-            title: string;
-            severity: components["schemas"]["Severity"];
-            noteMarkdown: string;
-            /** Format: date-time */
-            createdAt: string;
-            createdBy: string | null;
-            photos: components["schemas"]["PhotoRef"][];
-            readings: components["schemas"]["Reading"][];
-            workOrderId: string;
-            proposedLineIds: string[];
-        };
-        FindingDetail: {
-            id: string;
-            concernId: string | null;
-            title: string;
-            severity: components["schemas"]["Severity"];
-            noteMarkdown: string;
-            /** Format: date-time */
-            createdAt: string;
-            createdBy: string | null;
-            photos: components["schemas"]["PhotoRef"][];
-            readings: components["schemas"]["Reading"][];
-            workOrderId: string;
         };
         ChangePasswordInput: {
             currentPassword: string;

@@ -1,8 +1,9 @@
 import { z } from "zod";
 import { INSPECTION_BASES, SERVICE_REQUEST_STATUSES } from "@/lib/domain";
 import { SYMPTOMS } from "@/lib/occurrences/symptoms";
-import { calendarDate, cents, id, instant, named, nextCursor } from "../components";
-import { finding, lineKind, lineState, meterKind, timelineEntry, workOrderStatus } from "./common";
+import { calendarDate, id, instant, named, nextCursor } from "../components";
+import { finding, meterKind, timelineEntry, workOrderStatus } from "./common";
+import { estimateLineFields, workOrderFields } from "./work-orders";
 
 const inspectionBasis = z.enum(INSPECTION_BASES).nullable();
 
@@ -52,32 +53,17 @@ export const unitRecord = named(
   }),
 );
 
-const visitSummary = z.object({
-  id,
-  number: z.number().int(),
-  status: workOrderStatus,
-  title: z.string(),
+/** A past or current visit in a unit's history: the work order's own fields and when it came and went. */
+const visitSummary = workOrderFields.extend({
   openedAt: instant,
   releasedAt: instant.nullable(),
-  promisedAt: instant.nullable(),
-  updatedAt: instant,
   technicianName: z.string().nullable(),
 });
 
 export const deferredLine = named(
   "DeferredLine",
-  z.object({
-    id,
-    workOrderId: id,
-    kind: lineKind,
-    description: z.string(),
-    quantity: z.number(),
-    unitPriceCents: cents,
-    amountCents: cents,
-    state: lineState,
-    updatedAt: instant,
-  }),
-  "A held or declined line of an earlier visit, to bring back.",
+  estimateLineFields.extend({ workOrderId: id, updatedAt: instant }),
+  "A held or declined line of an earlier visit, to bring back: the fields of an estimate line, its work order and when it last changed.",
 );
 
 export const unitDetail = named(

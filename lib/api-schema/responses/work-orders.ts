@@ -2,33 +2,51 @@ import { z } from "zod";
 import { cents, id, instant, named, nextCursor } from "../components";
 import { decisionRecord, decisionValue, finding, lineKind, lineState, timelineEntry, totals, workOrderStatus } from "./common";
 
-/** An estimate line as the work order shows it: api-v1.md "Work order detail" `lines[]`, plus fields added since. */
-export const estimateLine = named(
-  "EstimateLine",
-  z.object({
-    id,
-    kind: lineKind,
-    description: z.string(),
-    quantity: z.number().describe("Hours for labour (one decimal), pieces otherwise."),
-    unitPriceCents: cents,
-    amountCents: cents,
-    taxable: z.boolean(),
-    coreChargeCents: cents,
-    coreTotalCents: cents,
-    coreReturnedAt: instant.nullable(),
-    state: lineState,
-    version: z.number().int().describe("Send as `expectedVersion` with a decision."),
-    findingId: id.nullable(),
-    concernId: id.nullable(),
-    partNumber: z.string(),
-    isDiagnosis: z.boolean(),
-    byStanding: z.boolean().describe("Approved under the account's standing authorisation."),
-    reopenReason: z.string().nullable(),
-    deferredFromLineId: id.nullable(),
-    extendsLineId: id.nullable(),
-    decision: decisionRecord.extend({ lineVersion: z.number().int() }).nullable(),
-  }),
-);
+/**
+ * An estimate line's own fields: what `lineFieldsOut` (lib/records/estimate-line.ts)
+ * answers, held to it by tests/unit/api/record-shapes.test.ts.
+ */
+export const estimateLineFields = z.object({
+  id,
+  kind: lineKind,
+  description: z.string(),
+  quantity: z.number().describe("Hours for labour (one decimal), pieces otherwise."),
+  unitPriceCents: cents,
+  amountCents: cents.describe("Quantity × unit price; the core charge apart."),
+  taxable: z.boolean(),
+  coreChargeCents: cents,
+  coreTotalCents: cents.describe("What the core costs if it does not come back."),
+  coreReturnedAt: instant.nullable(),
+  state: lineState,
+  version: z.number().int().describe("Send as `expectedVersion` with a decision."),
+  findingId: id.nullable(),
+  concernId: id.nullable(),
+  partNumber: z.string(),
+  isDiagnosis: z.boolean(),
+  byStanding: z.boolean().describe("Approved under the account's standing authorisation."),
+  reopenReason: z.string().nullable(),
+  deferredFromLineId: id.nullable(),
+  extendsLineId: id.nullable(),
+});
+
+/** The latest decision on a line: `decisionOut` (lib/records/estimate-line.ts). */
+export const lineDecision = named("LineDecision", decisionRecord.extend({ lineVersion: z.number().int().describe("The line's version the decision was made on.") }));
+
+/** An estimate line, the one shape every route answers it in (`lineOut`): api-v1.md "Work order detail" `lines[]`, plus fields added since. */
+export const estimateLine = named("EstimateLine", estimateLineFields.extend({ decision: lineDecision.nullable() }));
+
+/** A work order's own fields: what `workOrderOut` (lib/records/work-order.ts) answers; every answer about one carries them. */
+export const workOrderFields = z.object({
+  id,
+  number: z.number().int(),
+  label: z.string().describe('As people read it: "W-1042".'),
+  unitId: id,
+  accountId: id,
+  status: workOrderStatus,
+  title: z.string(),
+  promisedAt: instant.nullable(),
+  updatedAt: instant,
+});
 
 export const limits = named(
   "Limits",
@@ -62,16 +80,7 @@ export const concern = named(
 
 export const workOrderDetail = named(
   "WorkOrderDetail",
-  z.object({
-    id,
-    number: z.number().int(),
-    label: z.string(),
-    unitId: id,
-    accountId: id,
-    status: workOrderStatus,
-    promisedAt: instant.nullable(),
-    updatedAt: instant,
-    title: z.string(),
+  workOrderFields.extend({
     poNumber: z.string().nullable(),
     unitNumber: z.string(),
     unitDescription: z.string(),
@@ -94,18 +103,9 @@ export const workOrderDetail = named(
 
 export const workOrderSummary = named(
   "WorkOrderSummary",
-  z.object({
-    id,
-    number: z.number().int(),
-    label: z.string(),
-    unitId: id,
-    accountId: id,
-    status: workOrderStatus,
-    promisedAt: instant.nullable(),
+  workOrderFields.extend({
     openedAt: instant,
     releasedAt: instant.nullable(),
-    updatedAt: instant,
-    title: z.string(),
     unitNumber: z.string(),
     unitDescription: z.string(),
     accountName: z.string(),
@@ -140,56 +140,33 @@ const workOrderRecord = {
 
 export const checkedInWorkOrder = named(
   "CheckedInWorkOrder",
-  z.object({ ...workOrderRecord, label: z.string(), concerns: z.array(z.object({ complaint: z.string() })), serviceRequestId: id.nullable() }),
+  z.object({ ...workOrderRecord, ...workOrderFields.shape, concerns: z.array(z.object({ complaint: z.string() })), serviceRequestId: id.nullable() }),
 );
 
 export const movedWorkOrder = named(
   "MovedWorkOrder",
-  z.object({
-    id,
-    number: z.number().int(),
-    unitId: id,
-    accountId: id,
-    status: workOrderStatus,
-    title: z.string(),
-    promisedAt: instant.nullable(),
+  workOrderFields.extend({
     releasedAt: instant.nullable(),
-    updatedAt: instant,
     lastNote: z.string(),
     event: timelineEntry.extend({ by: z.string() }),
   }),
 );
 
-/**
- * The line `POST /lines/:id/decision` answers: the contract's fields of a line
- * (api-v1.md "Work order detail"). It is open to more members because the
- * route builds its own, smaller shape today; issue 12's one mapper answers
- * the whole EstimateLine here.
- */
-export const decidedLine = named(
-  "DecidedLine",
-  z.looseObject({
-    id,
-    kind: lineKind,
-    description: z.string(),
-    quantity: z.number(),
-    unitPriceCents: cents,
-    amountCents: cents,
-    taxable: z.boolean(),
-    coreChargeCents: cents,
-    state: lineState,
-    version: z.number().int(),
-    findingId: id.nullable(),
-    decision: decisionRecord.nullable(),
-  }),
-);
-
-export const lineDecisionResult = named("LineDecisionResult", z.object({ line: decidedLine, totals }));
+export const lineDecisionResult = named("LineDecisionResult", z.object({ line: estimateLine, totals }));
 
 export const batchDecisionResult = named(
   "BatchDecisionResult",
   z.object({
-    lines: z.array(z.object({ id, state: lineState, version: z.number().int(), decision: decisionValue, amountCents: cents })),
+    lines: z.array(
+      z.object({
+        id,
+        state: lineState,
+        version: z.number().int(),
+        decision: decisionValue,
+        amountCents: cents,
+        line: estimateLine,
+      }),
+    ),
     totals,
   }),
 );
