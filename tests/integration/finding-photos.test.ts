@@ -18,7 +18,7 @@ import { getDb } from "@/db/client";
 import { photos } from "@/db/schema";
 import { jpegHasGps } from "@/lib/uploads/exif-gps";
 import type { PhotoUploadResult } from "@/lib/server/uploads/store-photo";
-import { call, sessionCookie } from "./helpers/app";
+import { call, checked, sessionCookie } from "./helpers/app";
 import { startUploadFake, type UploadFake } from "./helpers/fake-uploads";
 import { installNodeXhr } from "./helpers/node-xhr";
 import { serveFetchHandler } from "./helpers/serve-fetch-handler";
@@ -64,8 +64,10 @@ async function pngPhoto(name: string): Promise<File> {
   return new File([new Uint8Array(bytes)], name, { type: "image/png" });
 }
 
-const served = (handler: typeof photoFull, id: string, as: string) =>
-  handler(new Request(`http://localhost:3000/api/v1/photos/${id}`, { headers: { cookie: as } }), { params: Promise.resolve({ id }) });
+const served = (handler: typeof photoFull, id: string, as: string) => {
+  const request = new Request(`http://localhost:3000/api/v1/photos/${id}`, { headers: { cookie: as } });
+  return checked(request, handler(request, { params: Promise.resolve({ id }) }));
+};
 
 describe("a technician's finding with two photos, through the upload SDK and the local fake", () => {
   it("stores clean copies without location data, attaches them, and shows them only within the account", async () => {

@@ -1,4 +1,4 @@
-import { mkdirSync, rmSync } from "node:fs";
+import { mkdirSync, readdirSync, readFileSync, rmSync } from "node:fs";
 import path from "node:path";
 import { createClient } from "@libsql/client";
 import type { TestProject } from "vitest/node";
@@ -11,6 +11,8 @@ declare module "vitest" {
   export interface ProvidedContext {
     /** A migrated database with the demo data, made once per run; each file copies it (setup.ts). */
     templateDb: string;
+    /** Where each file leaves how many /api/v1 answers it checked against the OpenAPI document. */
+    answerCounts: string;
   }
 }
 
@@ -34,9 +36,16 @@ export default async function setup(project: TestProject) {
   // Room for every file's mail in one run; the demo's catcher keeps fewer.
   const smtp = await startFakeSmtp({ keep: 20_000 });
   project.provide("templateDb", file);
+  const counts = path.join(dir, `answers-${process.pid}-${Date.now()}`);
+  mkdirSync(counts, { recursive: true });
+  project.provide("answerCounts", counts);
   project.provide("mailCatcher", { smtpPort: smtp.smtpPort, httpUrl: `http://127.0.0.1:${smtp.httpPort}` });
 
   return async () => {
+    const files = readdirSync(counts);
+    const total = files.reduce((sum, f) => sum + Number(readFileSync(path.join(counts, f), "utf8")), 0);
+    console.log(`OpenAPI: ${total} /api/v1 answers in ${files.length} files matched the document.`);
+    rmSync(counts, { recursive: true, force: true });
     await smtp.close();
     for (const suffix of ["", "-wal", "-shm"]) rmSync(`${file}${suffix}`, { force: true });
   };

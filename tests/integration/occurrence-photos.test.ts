@@ -22,7 +22,7 @@ import { resetEnvCache } from "@/lib/env";
 import { jpegHasGps } from "@/lib/uploads/exif-gps";
 import type { PhotoUploadResult } from "@/lib/server/uploads/store-photo";
 import { startFakeUploadThing, type FakeUploadThing } from "@/mocks/uploadthing/server";
-import { call, sessionCookie, userByEmail, type Problem } from "./helpers/app";
+import { call, checked, sessionCookie, userByEmail, type Problem } from "./helpers/app";
 import { installNodeXhr } from "./helpers/node-xhr";
 import { serveFetchHandler } from "./helpers/serve-fetch-handler";
 import { fileMailbox } from "./helpers/mail";
@@ -122,7 +122,8 @@ async function postAs(as: string, unit: string, body: Record<string, unknown>) {
 
 const served = async (handler: typeof photoFull, url: string, as: string | null) => {
   const id = url.split("/")[4] ?? "";
-  return handler(new Request(`http://localhost:3000${url}`, { headers: as ? { cookie: await sessionCookie(as) } : {} }), { params: Promise.resolve({ id }) });
+  const request = new Request(`http://localhost:3000${url}`, { headers: as ? { cookie: await sessionCookie(as) } : {} });
+  return checked(request, handler(request, { params: Promise.resolve({ id }) }));
 };
 
 async function photoRow(id: string) {

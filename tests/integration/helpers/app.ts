@@ -2,6 +2,7 @@ import { eq } from "drizzle-orm";
 import { encode } from "next-auth/jwt";
 import { getDb } from "@/db/client";
 import { users } from "@/db/schema";
+import { checkApiAnswer } from "@/tests/support/openapi-responses";
 
 export const BASE = "http://localhost:3000";
 
@@ -44,7 +45,8 @@ export async function call<T = Problem>(
     headers["content-type"] ??= "application/json";
     body = typeof options.body === "string" ? options.body : JSON.stringify(options.body);
   }
-  const response = await handler(new Request(`${BASE}${options.path}`, { method: options.method ?? (body ? "POST" : "GET"), headers, body }), {
+  const method = options.method ?? (body ? "POST" : "GET");
+  const response = await handler(new Request(`${BASE}${options.path}`, { method, headers, body }), {
     params: Promise.resolve(options.params ?? {}),
   });
   const text = await response.text();
@@ -54,7 +56,21 @@ export async function call<T = Problem>(
   } catch {
     // not JSON; keep the text
   }
+  // Every /api/v1 answer a test sees must be one the OpenAPI document describes.
+  checkApiAnswer({ method, url: options.path, status: response.status, contentType: response.headers.get("content-type"), body: parsed });
   return { status: response.status, body: parsed as T, headers: response.headers };
+}
+
+/**
+ * For tests that call a handler with a Request of their own (binary answers):
+ * holds the answer to the document like call() does, and hands it back unread.
+ */
+export async function checked(request: Request, response: Response | Promise<Response>): Promise<Response> {
+  const res = await response;
+  const type = res.headers.get("content-type");
+  const body: unknown = type?.includes("json") ? await res.clone().json() : null;
+  checkApiAnswer({ method: request.method, url: request.url, status: res.status, contentType: type, body });
+  return res;
 }
 
 /** The SessionUser the guard would build for a demo user (for calling db/queries writes directly). */
