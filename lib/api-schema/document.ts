@@ -20,7 +20,7 @@ const STANDARD_PROBLEMS: Record<number, string> = {
   400: "Invalid input (`invalid_input` with field `errors`, or `malformed_json`).",
   401: "No session or token (`unauthenticated`).",
   403: "The caller's role may not do this (`forbidden`).",
-  404: "No such item, or another account's (`not_found`).",
+  404: "No such item, or another account's (`not_found`): the path's id or an id the body names.",
   413: "The body is too large (`payload_too_large`).",
   415: "The body is not of the media type this takes (`unsupported_media_type`).",
   500: "Something went wrong; nothing was changed (`internal_error`).",
@@ -88,7 +88,8 @@ function requestBody(op: Operation, inputs: Record<string, Json>): Json | undefi
 function problemStatuses(op: Operation): number[] {
   const statuses = new Set<number>([500]);
   if (op.roles) [401, 403].forEach((s) => statuses.add(s));
-  if (op.params) statuses.add(404);
+  // A path id, or an id a signed-in caller's body names (a unit to check in, an account), may name nothing of theirs.
+  if (op.params || (op.body && op.roles)) statuses.add(404);
   if (op.query || op.body) statuses.add(400);
   if (op.body) [413, 415].forEach((s) => statuses.add(s));
   for (const s of Object.keys(op.problems ?? {})) statuses.add(Number(s));

@@ -1048,10 +1048,8 @@ export interface components {
             /** Format: date-time */
             updatedAt: string;
             contacts: components["schemas"]["Contact"][];
-            /** @description Each changed field with its old and new value (`{ from, to }`); `contacts` the new list. */
-            changed: {
-                [key: string]: unknown;
-            };
+            /** @description How many fields changed (0: nothing did); each change is in the audit log with its old and new value. */
+            changed: number;
         };
         InvoiceSummary: {
             id: string;
@@ -1069,7 +1067,10 @@ export interface components {
             paymentState: "open" | "partly_paid" | "paid" | "void";
             /** Format: date-time */
             issuedAt: string;
-            /** Format: date-time */
+            /**
+             * Format: date
+             * @description The day it falls due, in the shop's time zone (YYYY-MM-DD).
+             */
             dueAt: string;
             totalCents: number;
             paidCents: number;
@@ -1098,7 +1099,10 @@ export interface components {
             issuedAt: string;
             /** Format: date */
             issuedOn: string;
-            /** Format: date-time */
+            /**
+             * Format: date
+             * @description The day it falls due, in the shop's time zone (YYYY-MM-DD).
+             */
             dueAt: string;
             termsDays: number;
             poNumber: string | null;
@@ -1231,7 +1235,10 @@ export interface components {
                 paymentState: "open" | "partly_paid" | "paid" | "void";
                 /** Format: date-time */
                 issuedAt: string;
-                /** Format: date-time */
+                /**
+                 * Format: date
+                 * @description The day it falls due, in the shop's time zone (YYYY-MM-DD).
+                 */
                 dueAt: string;
                 totalCents: number;
                 paidCents: number;
@@ -2119,7 +2126,7 @@ export interface components {
                 "application/problem+json": components["schemas"]["Problem"];
             };
         };
-        /** @description No such item, or another account's (`not_found`). */
+        /** @description No such item, or another account's (`not_found`): the path's id or an id the body names. */
         Problem404: {
             headers: {
                 [name: string]: unknown;
@@ -2262,6 +2269,7 @@ export interface operations {
             400: components["responses"]["Problem400"];
             401: components["responses"]["Problem401"];
             403: components["responses"]["Problem403"];
+            404: components["responses"]["Problem404"];
             413: components["responses"]["Problem413"];
             415: components["responses"]["Problem415"];
             500: components["responses"]["Problem500"];
@@ -2355,6 +2363,7 @@ export interface operations {
             400: components["responses"]["Problem400"];
             401: components["responses"]["Problem401"];
             403: components["responses"]["Problem403"];
+            404: components["responses"]["Problem404"];
             /** @description `already_invited`. */
             409: {
                 headers: {
@@ -2471,7 +2480,7 @@ export interface operations {
                 };
             };
             400: components["responses"]["Problem400"];
-            /** @description No such item, or another account's (`not_found`). Also: `invitation_not_found`. */
+            /** @description No such item, or another account's (`not_found`): the path's id or an id the body names. Also: `invitation_not_found`. */
             404: {
                 headers: {
                     [name: string]: unknown;
@@ -2554,7 +2563,7 @@ export interface operations {
                 };
             };
             400: components["responses"]["Problem400"];
-            /** @description No such item, or another account's (`not_found`). Also: `reset_not_found`. */
+            /** @description No such item, or another account's (`not_found`): the path's id or an id the body names. Also: `reset_not_found`. */
             404: {
                 headers: {
                     [name: string]: unknown;
@@ -2641,6 +2650,7 @@ export interface operations {
             400: components["responses"]["Problem400"];
             401: components["responses"]["Problem401"];
             403: components["responses"]["Problem403"];
+            404: components["responses"]["Problem404"];
             413: components["responses"]["Problem413"];
             415: components["responses"]["Problem415"];
             500: components["responses"]["Problem500"];
@@ -2857,6 +2867,7 @@ export interface operations {
             400: components["responses"]["Problem400"];
             401: components["responses"]["Problem401"];
             403: components["responses"]["Problem403"];
+            404: components["responses"]["Problem404"];
             413: components["responses"]["Problem413"];
             415: components["responses"]["Problem415"];
             500: components["responses"]["Problem500"];
@@ -3249,6 +3260,7 @@ export interface operations {
             400: components["responses"]["Problem400"];
             401: components["responses"]["Problem401"];
             403: components["responses"]["Problem403"];
+            404: components["responses"]["Problem404"];
             /** @description `unit_in_shop`, `unit_retired`, `account_archived`, `report_scheduled`. */
             409: {
                 headers: {

@@ -41,7 +41,7 @@ export const accountPatchResult = named(
   "AccountPatchResult",
   z.object({
     ...accountDetail.shape,
-    changed: z.record(z.string(), z.unknown()).describe("Each changed field with its old and new value (`{ from, to }`); `contacts` the new list."),
+    changed: z.number().int().describe("How many fields changed (0: nothing did); each change is in the audit log with its old and new value."),
   }),
 );
 
@@ -63,7 +63,7 @@ export const invoiceSummary = named(
     status: invoiceStatus,
     paymentState,
     issuedAt: instant,
-    dueAt: instant,
+    dueAt: calendarDate.describe("The day it falls due, in the shop's time zone (YYYY-MM-DD)."),
     totalCents: cents,
     paidCents: cents,
     creditedCents: cents,
@@ -91,7 +91,7 @@ export const invoiceDetail = named(
     paymentState,
     issuedAt: instant,
     issuedOn: calendarDate,
-    dueAt: instant,
+    dueAt: calendarDate.describe("The day it falls due, in the shop's time zone (YYYY-MM-DD)."),
     termsDays: z.number().int(),
     poNumber: z.string().nullable(),
     billTo: z.object({ accountName: z.string(), address: z.string(), email: z.string(), phone: z.string(), contactName: z.string() }),
