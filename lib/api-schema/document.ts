@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { apiComponents } from "./components";
 import { OPERATIONS, TAGS, type Body, type NotJson, type Operation } from "./operations";
+import type { ProblemCode } from "./problem-codes";
 import "./responses/accounts";
 import "./responses/common";
 import "./responses/units";
@@ -25,6 +26,29 @@ const STANDARD_PROBLEMS: Record<number, string> = {
   415: "The body is not of the media type this takes (`unsupported_media_type`).",
   500: "Something went wrong; nothing was changed (`internal_error`).",
 };
+
+/** The codes each standard refusal carries (lib/http/problem.ts, read-body.ts, proxy.ts). */
+const STANDARD_CODES: Record<number, readonly ProblemCode[]> = {
+  400: ["invalid_input", "malformed_json", "malformed_url"],
+  401: ["unauthenticated"],
+  403: ["forbidden"],
+  404: ["not_found"],
+  413: ["payload_too_large"],
+  415: ["unsupported_media_type"],
+  500: ["internal_error"],
+};
+
+/**
+ * A refusal: a problem document whose `code` is one of these. The codes are
+ * also listed as `x-problem-codes`, for people's tools and the reference page.
+ */
+function problemResponse(description: string, codes: readonly ProblemCode[]): Json {
+  return {
+    description,
+    "x-problem-codes": codes,
+    content: { "application/problem+json": { schema: { allOf: [{ $ref: ref("Problem") }, { properties: { code: { enum: codes } } }] } } },
+  };
+}
 
 const isNotJson = (b: Body): b is NotJson => "mediaType" in b && typeof (b as NotJson).mediaType === "string";
 
@@ -111,10 +135,10 @@ function responses(op: Operation): Json {
       continue;
     }
     const standard = STANDARD_PROBLEMS[status];
-    out[status] = {
-      description: `${standard ? `${standard} Also: ` : ""}${codes.map((c) => `\`${c}\``).join(", ")}.`,
-      content: { "application/problem+json": { schema: { $ref: ref("Problem") } } },
-    };
+    out[status] = problemResponse(
+      `${standard ? `${standard} Also: ` : ""}${codes.map((c) => `\`${c}\``).join(", ")}.`,
+      [...new Set([...(STANDARD_CODES[status] ?? []), ...codes])],
+    );
   }
   return out;
 }
@@ -153,7 +177,7 @@ export function buildOpenApiDocument(): OpenApiDocument {
   }
   const problemResponses: Json = {};
   for (const [status, description] of Object.entries(STANDARD_PROBLEMS)) {
-    problemResponses[`Problem${status}`] = { description, content: { "application/problem+json": { schema: { $ref: ref("Problem") } } } };
+    problemResponses[`Problem${status}`] = problemResponse(description, STANDARD_CODES[Number(status)] ?? []);
   }
   return {
     openapi: "3.1.1",

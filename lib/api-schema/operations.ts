@@ -161,7 +161,7 @@ export const OPERATIONS: Operation[] = [
     roles: CAN.manageAccounts,
     params: idParams,
     responses: { 200: A.invitation },
-    problems: { 409: ["invitation_used"], 410: ["invitation_withdrawn"] },
+    problems: { 409: ["invitation_used", "invitation_withdrawn"] },
   },
   {
     method: "delete",

@@ -2105,7 +2105,10 @@ export interface components {
                 [name: string]: unknown;
             };
             content: {
-                "application/problem+json": components["schemas"]["Problem"];
+                "application/problem+json": components["schemas"]["Problem"] & {
+                    /** @enum {unknown} */
+                    code?: "invalid_input" | "malformed_json" | "malformed_url";
+                };
             };
         };
         /** @description No session or token (`unauthenticated`). */
@@ -2114,7 +2117,10 @@ export interface components {
                 [name: string]: unknown;
             };
             content: {
-                "application/problem+json": components["schemas"]["Problem"];
+                "application/problem+json": components["schemas"]["Problem"] & {
+                    /** @enum {unknown} */
+                    code?: "unauthenticated";
+                };
             };
         };
         /** @description The caller's role may not do this (`forbidden`). */
@@ -2123,7 +2129,10 @@ export interface components {
                 [name: string]: unknown;
             };
             content: {
-                "application/problem+json": components["schemas"]["Problem"];
+                "application/problem+json": components["schemas"]["Problem"] & {
+                    /** @enum {unknown} */
+                    code?: "forbidden";
+                };
             };
         };
         /** @description No such item, or another account's (`not_found`): the path's id or an id the body names. */
@@ -2132,7 +2141,10 @@ export interface components {
                 [name: string]: unknown;
             };
             content: {
-                "application/problem+json": components["schemas"]["Problem"];
+                "application/problem+json": components["schemas"]["Problem"] & {
+                    /** @enum {unknown} */
+                    code?: "not_found";
+                };
             };
         };
         /** @description The body is too large (`payload_too_large`). */
@@ -2141,7 +2153,10 @@ export interface components {
                 [name: string]: unknown;
             };
             content: {
-                "application/problem+json": components["schemas"]["Problem"];
+                "application/problem+json": components["schemas"]["Problem"] & {
+                    /** @enum {unknown} */
+                    code?: "payload_too_large";
+                };
             };
         };
         /** @description The body is not of the media type this takes (`unsupported_media_type`). */
@@ -2150,7 +2165,10 @@ export interface components {
                 [name: string]: unknown;
             };
             content: {
-                "application/problem+json": components["schemas"]["Problem"];
+                "application/problem+json": components["schemas"]["Problem"] & {
+                    /** @enum {unknown} */
+                    code?: "unsupported_media_type";
+                };
             };
         };
         /** @description Something went wrong; nothing was changed (`internal_error`). */
@@ -2159,7 +2177,10 @@ export interface components {
                 [name: string]: unknown;
             };
             content: {
-                "application/problem+json": components["schemas"]["Problem"];
+                "application/problem+json": components["schemas"]["Problem"] & {
+                    /** @enum {unknown} */
+                    code?: "internal_error";
+                };
             };
         };
     };
@@ -2195,7 +2216,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "database_unreachable";
+                    };
                 };
             };
         };
@@ -2304,7 +2328,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "already_set_up";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -2370,7 +2397,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "already_invited";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -2401,22 +2431,16 @@ export interface operations {
             401: components["responses"]["Problem401"];
             403: components["responses"]["Problem403"];
             404: components["responses"]["Problem404"];
-            /** @description `invitation_used`. */
+            /** @description `invitation_used`, `invitation_withdrawn`. */
             409: {
                 headers: {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
-                };
-            };
-            /** @description `invitation_withdrawn`. */
-            410: {
-                headers: {
-                    [name: string]: unknown;
-                };
-                content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "invitation_used" | "invitation_withdrawn";
+                    };
                 };
             };
             500: components["responses"]["Problem500"];
@@ -2451,7 +2475,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "invitation_used" | "invitation_withdrawn";
+                    };
                 };
             };
             500: components["responses"]["Problem500"];
@@ -2486,7 +2513,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "not_found" | "invitation_not_found";
+                    };
                 };
             };
             /** @description `invitation_used`. */
@@ -2495,7 +2525,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "invitation_used";
+                    };
                 };
             };
             /** @description `invitation_expired`, `invitation_withdrawn`. */
@@ -2504,7 +2537,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "invitation_expired" | "invitation_withdrawn";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -2569,7 +2605,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "not_found" | "reset_not_found";
+                    };
                 };
             };
             /** @description `reset_used`. */
@@ -2578,7 +2617,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "reset_used";
+                    };
                 };
             };
             /** @description `reset_expired`. */
@@ -2587,7 +2629,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "reset_expired";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -3058,7 +3103,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "concern_closed";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -3161,7 +3209,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "unit_retired";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -3267,7 +3318,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "unit_in_shop" | "unit_retired" | "account_archived" | "report_scheduled";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -3335,7 +3389,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "work_order_closed";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -3377,7 +3434,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "work_order_closed" | "lines_pending";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -3419,7 +3479,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "work_order_closed";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -3461,7 +3524,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "work_order_closed";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -3503,7 +3569,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "signing_limit_exceeded" | "budget_exceeded" | "overrun_exceeded" | "stale_version" | "not_pending" | "time_box_extension";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -3545,7 +3614,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "signing_limit_exceeded" | "budget_exceeded" | "overrun_exceeded" | "stale_version" | "not_pending" | "not_found" | "time_box_extension";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -3613,7 +3685,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "work_order_closed";
+                    };
                 };
             };
             413: components["responses"]["Problem413"];
@@ -3677,7 +3752,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "upload_service_unavailable";
+                    };
                 };
             };
         };
@@ -3712,7 +3790,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "upload_service_unavailable";
+                    };
                 };
             };
         };
@@ -3829,7 +3910,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "not_payable";
+                    };
                 };
             };
             500: components["responses"]["Problem500"];
@@ -3839,7 +3923,10 @@ export interface operations {
                     [name: string]: unknown;
                 };
                 content: {
-                    "application/problem+json": components["schemas"]["Problem"];
+                    "application/problem+json": components["schemas"]["Problem"] & {
+                        /** @enum {unknown} */
+                        code?: "payment_service_unavailable";
+                    };
                 };
             };
         };

@@ -57,8 +57,8 @@ class ResponseChecker {
     const key = JSON.stringify(schema);
     let validate = this.validators.get(key);
     if (!validate) {
-      const ref = schema.$ref as string | undefined;
-      validate = ref ? this.ajv.compile({ $ref: `${BASE_ID}${ref}` }) : this.ajv.compile(schema);
+      // An operation's own schema (a refusal's `allOf`) refers into the components by the same ids.
+      validate = this.ajv.compile(JSON.parse(key.replaceAll('"$ref":"#/', `"$ref":"${BASE_ID}#/`)) as Json);
       this.validators.set(key, validate);
     }
     return validate;
@@ -87,7 +87,11 @@ class ResponseChecker {
     if (mediaType.endsWith("json") && media.schema) {
       const validate = this.validator(media.schema);
       if (!validate(answer.body)) {
-        const errors = (validate.errors ?? []).slice(0, 8).map((e) => `${e.instancePath || "(body)"} ${e.message}${e.params && "additionalProperty" in e.params ? ` (${String(e.params.additionalProperty)})` : ""}`);
+        const valueAt = (pointer: string) => pointer.split("/").slice(1).reduce<unknown>((v, k) => (v as Record<string, unknown> | undefined)?.[k], answer.body);
+        const errors = (validate.errors ?? []).slice(0, 8).map((e) => {
+          const extra = e.params && "additionalProperty" in e.params ? ` (${String(e.params.additionalProperty)})` : "";
+          return `${e.instancePath || "(body)"} ${e.message}${extra}; it is ${JSON.stringify(valueAt(e.instancePath))?.slice(0, 120)}`;
+        });
         throw new Error(`${name}: the body does not match the document:\n  ${errors.join("\n  ")}`);
       }
     }
