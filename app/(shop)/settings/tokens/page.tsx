@@ -1,9 +1,10 @@
 import type { Metadata } from "next";
 import { ApiTokens } from "@/components/settings/api-tokens";
+import { ButtonLink } from "@/components/ui/button";
 import { PageHeader } from "@/components/ui/page-header";
 import { listMyTokens } from "@/db/queries/api-tokens";
 import { requirePageRole } from "@/lib/server/auth/page-access";
-import { CAN } from "@/lib/auth/policy";
+import { CAN, isStaff } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "API tokens" };
 
@@ -12,7 +13,11 @@ export default async function TokensPage() {
   const tokens = await listMyTokens(user);
   return (
     <>
-      <PageHeader title="Personal API tokens" kicker="For your own scripts, with the Fleet API (/api/v1)" />
+      <PageHeader title="Personal API tokens" kicker="For your own scripts, with the Fleet API (/api/v1)">
+        <ButtonLink variant="secondary" href={isStaff(user) ? "/settings/tokens/reference" : "/fleet/settings/tokens/reference"}>
+          API reference
+        </ButtonLink>
+      </PageHeader>
       <ApiTokens tokens={tokens} />
     </>
   );
