@@ -137,6 +137,23 @@ describe("access sweep over every page and API route", () => {
     expect(failures).toEqual([]);
   });
 
+  it("the API reference refuses before it renders: nobody 401, a fleet person on the shop's page 403, with nothing of the reference in the body", async () => {
+    // Words only the reference shows (an operation id, a schema name, a path template).
+    const marks = ["decideLine", "LineDecisionResult", "/api/v1/lines/{id}/decision"];
+    const read = async (path: string, cookie: string | null) => {
+      const res = await fetch(`${inject("baseUrl")}${path}`, { headers: cookie ? { cookie } : {}, redirect: "manual" });
+      const body = await res.text();
+      return { status: res.status, shows: marks.filter((m) => body.includes(m)) };
+    };
+    const fleet = personas.find((p) => p.role === "approver")!;
+    expect(await read("/settings/tokens/reference", null)).toEqual({ status: 401, shows: [] });
+    expect(await read("/fleet/settings/tokens/reference", null)).toEqual({ status: 401, shows: [] });
+    expect(await read("/settings/tokens/reference", fleet.cookie)).toEqual({ status: 403, shows: [] });
+    // and the people it is for do get it
+    expect(await read("/fleet/settings/tokens/reference", fleet.cookie)).toEqual({ status: 200, shows: marks });
+    expect(await read("/settings/tokens/reference", await staffCookie("writer"))).toEqual({ status: 200, shows: marks });
+  });
+
   it("changed nothing in the first account's data", async () => {
     expect(await fingerprint()).toEqual(before);
   });

@@ -70,6 +70,7 @@ export const PAGES: readonly PageEntry[] = [
   { route: "/settings", as: OWNER, viewports: ["desktop"] },
   { route: "/settings/people", as: OWNER, viewports: ["desktop"] },
   { route: "/settings/tokens", as: WRITER, viewports: ["desktop"] },
+  { route: "/settings/tokens/reference", as: WRITER, viewports: ["desktop"] },
   { route: "/settings/mail", as: OWNER, viewports: ["desktop"] },
 
   // The fleet.
@@ -86,4 +87,6 @@ export const PAGES: readonly PageEntry[] = [
   { route: "/fleet/invoices/[id]", as: CLERK, viewports: ["phone", "desktop"], ids: { id: `SELECT id FROM invoices WHERE account_id = ${township} AND status <> 'void' ORDER BY issued_at DESC LIMIT 1` } },
   { route: "/fleet/statement", as: CLERK, viewports: ["phone", "desktop"] },
   { route: "/fleet/settings/tokens", as: CLERK, viewports: ["desktop"] },
+  // A fleet's IT person reads the reference at a desk; people also look it up on a phone.
+  { route: "/fleet/settings/tokens/reference", as: CLERK, viewports: ["phone", "desktop"] },
 ];
