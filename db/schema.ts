@@ -198,12 +198,19 @@ export const workOrders = sqliteTable(
     openedAt: text("opened_at").notNull(),
     sentForApprovalAt: text("sent_for_approval_at"),
     releasedAt: text("released_at"),
+    // True once nothing is left to invoice: a live invoice exists, or the visit was released with
+    // no approved work. Kept by settleNothingToBill (db/queries/billing-state.ts) in the
+    // transactions that change either, so the invoice queues read only the visits still open for billing.
+    nothingToBill: bool("nothing_to_bill").notNull().default(false),
     createdBy: text("created_by").references(() => users.id),
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
   (t) => [
     uniqueIndex("work_orders_number_unique").on(t.number),
+    // "Ready to invoice" and "waiting for a PO": visits still open for billing, newest first
+    // (the queries spell the literal so the planner can use the partial index).
+    index("work_orders_to_bill_number_idx").on(t.number).where(sql`nothing_to_bill = 0`),
     // A unit is in the shop on at most one open work order at a time.
     uniqueIndex("work_orders_one_open_per_unit").on(t.unitId).where(sql`status <> 'released'`),
     index("work_orders_account_status_idx").on(t.accountId, t.status),

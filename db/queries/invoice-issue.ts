@@ -28,6 +28,7 @@ import { dueDateOf } from "@/lib/invoices/balance";
 import { buildInvoice, type BillableLine } from "@/lib/invoices/build";
 import type { BillTo, ShopSnapshot, ThreeCs, UnitSnapshot } from "@/lib/invoices/snapshot";
 import { recordAudit } from "./audit";
+import { settleNothingToBill } from "./billing-state";
 import { loadWorkOrderRow, toAccountSettings, toShopSettings } from "./estimate-context";
 
 export function toBillable(row: EstimateLine): BillableLine {
@@ -179,6 +180,7 @@ export async function createInvoiceInTx(
     .returning({ id: invoices.id, number: invoices.number });
   if (!row) throw new Error("invoice insert returned nothing");
   await tx.insert(invoiceLines).values(draft.lines.map((l) => ({ invoiceId: row.id, ...l })));
+  await settleNothingToBill(tx, wo.id);
   return { id: row.id, number: row.number, accountId: account.id, totalCents: t.totalCents };
 }
 

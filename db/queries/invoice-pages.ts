@@ -16,6 +16,9 @@ const liveInvoice = (woId: typeof workOrders.id) =>
     .from(invoices)
     .where(and(eq(invoices.workOrderId, woId), ne(invoices.status, "void")));
 
+/** Visits not yet settled for billing (work_orders_to_bill_number_idx; a literal, so the planner can use the partial index). */
+const openForBilling = sql`${workOrders.nothingToBill} = 0`;
+
 /** The work order has at least one line in one of these states. */
 const hasLineIn = (states: readonly LineState[]) =>
   exists(
@@ -79,8 +82,11 @@ export async function readyToInvoice(user: SessionUser) {
     .where(
       and(
         scopedTo(workOrders.accountId, user),
-        // Visits still being worked on are invoiced when they reach final check.
-        inArray(workOrders.status, ["final_check", "ready", "released"]),
+        openForBilling,
+        // Visits still being worked on are invoiced when they reach final check. The unary + keeps
+        // the planner off the status index, which holds every released visit ever: the few visits
+        // open for billing come from the partial index instead.
+        sql`+${workOrders.status} in ('final_check', 'ready', 'released')`,
         hasLineIn(["done"]),
         notExists(liveInvoice(workOrders.id)),
       ),
@@ -105,6 +111,7 @@ export async function waitingForPo(user: SessionUser) {
     .where(
       and(
         scopedTo(workOrders.accountId, user),
+        openForBilling,
         eq(accounts.poRequired, true),
         or(isNull(workOrders.poNumber), eq(workOrders.poNumber, "")),
         notExists(liveInvoice(workOrders.id)),

@@ -2,13 +2,13 @@ import { and, asc, desc, eq, gt, lt, lte, ne, or, sql, type SQL } from "drizzle-
 import { getDb, type Reader } from "@/db/client";
 import { accounts, creditNotes, invoiceLines, invoices, payments, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
-import { creditNoteLabel, invoiceLabel, workOrderLabel, type InvoiceStatus } from "@/lib/domain";
+import { creditNoteLabel, invoiceLabel, type InvoiceStatus } from "@/lib/domain";
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
 import { invalidInput } from "@/lib/http/problem";
 import { decodeCursor, paginate, type PageQuery } from "@/lib/http/pagination";
-import { balanceOf, paymentStateOf } from "@/lib/invoices/balance";
 import { fromMilli } from "@/lib/money";
+import { invoiceOut } from "@/lib/records/invoice";
 import { scopedTo } from "./scope";
 
 const listColumns = {
@@ -30,26 +30,7 @@ const listColumns = {
 
 
 function listItem(r: ListRow) {
-  return {
-    id: r.id,
-    number: r.number,
-    label: invoiceLabel(r.number),
-    accountId: r.accountId,
-    accountName: r.accountName,
-    workOrderId: r.workOrderId,
-    workOrderNumber: workOrderLabel(r.workOrderNumber),
-    unitNumber: r.unitNumber,
-    poNumber: r.poNumber,
-    status: r.status,
-    paymentState: paymentStateOf(r),
-    issuedAt: r.issuedAt,
-    // A due date is a calendar date in the shop's time zone (ISO 8601 date).
-    dueAt: r.dueOn,
-    totalCents: r.totalCents,
-    paidCents: r.paidCents,
-    creditedCents: r.creditedCents,
-    balanceCents: balanceOf(r),
-  };
+  return { ...invoiceOut(r), unitNumber: r.unitNumber };
 }
 
 export type InvoiceListItem = ReturnType<typeof listItem>;
@@ -148,21 +129,10 @@ export async function getInvoiceDetail(user: Pick<SessionUser, "role" | "account
   const replaces = related.find((r) => r.id === i.replacesInvoiceId) ?? null;
   const tz = env().APP_TIME_ZONE;
   return {
-    id: i.id,
-    number: i.number,
-    label: invoiceLabel(i.number),
-    accountId: i.accountId,
-    accountName: inv.accountName,
-    workOrderId: i.workOrderId,
-    workOrderNumber: workOrderLabel(inv.workOrderNumber),
+    ...invoiceOut({ ...i, accountName: inv.accountName, workOrderNumber: inv.workOrderNumber }),
     unitId: inv.unitId,
-    status: i.status,
-    paymentState: paymentStateOf(i),
-    issuedAt: i.issuedAt,
     issuedOn: calendarDate(new Date(i.issuedAt), tz),
-    dueAt: i.dueOn,
     termsDays: i.termsDays,
-    poNumber: i.poNumber,
     billTo: i.billTo,
     shop: i.shopSnapshot,
     unit: i.unitSnapshot,
@@ -192,10 +162,6 @@ export async function getInvoiceDetail(user: Pick<SessionUser, "role" | "account
       coreCents: i.coreCents,
       totalCents: i.totalCents,
     },
-    totalCents: i.totalCents,
-    paidCents: i.paidCents,
-    creditedCents: i.creditedCents,
-    balanceCents: balanceOf(i),
     payments: paymentRows.map(({ payment: p, recordedByName }) => ({
       id: p.id,
       method: p.method,

@@ -7,6 +7,7 @@ import { conflict, notFound } from "@/lib/http/problem";
 import { nowIso } from "@/lib/ids";
 import { afterPayment, balanceOf, manualPaymentProblem } from "@/lib/invoices/balance";
 import { recordAudit } from "./audit";
+import { settleNothingToBill } from "./billing-state";
 import { scopedTo } from "./scope";
 
 /** The invoice, scoped to the user's account; another account's is not found. */
@@ -93,6 +94,8 @@ export async function voidInvoice(user: SessionUser, invoiceId: string, reason: 
       .update(invoices)
       .set({ status: "void", voidedAt: at, voidedBy: user.id, voidReason: reason, updatedAt: at })
       .where(eq(invoices.id, inv.id));
+    // The visit's work is open for billing again.
+    await settleNothingToBill(tx, inv.workOrderId);
     const open = await tx
       .select({ id: checkoutSessions.id })
       .from(checkoutSessions)

@@ -11,6 +11,7 @@ import { formatCents, lineAmountCents } from "@/lib/money";
 import type { StatusMoveInput } from "@/lib/validation/status";
 import { workOrderOut } from "@/lib/records/work-order";
 import { recordAudit } from "./audit";
+import { settleNothingToBill } from "./billing-state";
 import { findWorkOrder } from "./work-order-detail";
 
 /**
@@ -43,6 +44,8 @@ export async function moveStatus(user: SessionUser, workOrderId: string, move: S
       .update(workOrders)
       .set({ status: move.status, updatedAt: at, ...(released ? { releasedAt: at } : {}) })
       .where(eq(workOrders.id, wo.id));
+    // A visit released with no approved work has nothing to invoice, ever.
+    if (released) await settleNothingToBill(tx, wo.id);
     const [event] = await tx
       .insert(statusEvents)
       .values({ workOrderId: wo.id, status: move.status, note: move.note, byUserId: user.id, at })

@@ -1,4 +1,5 @@
 import { openDatabase } from "@/db/client";
+import { settleNothingToBill } from "@/db/queries/billing-state";
 import { rebuildBudgetUse } from "@/db/queries/budget-use";
 import { shopSettings } from "@/db/schema";
 import { seedAccounts } from "./accounts";
@@ -39,6 +40,7 @@ export async function seedDatabase(
       await seedEstimates(ctx);
       await seedOccurrences(ctx);
       await rebuildBudgetUse(tx, ctx.now);
+      await settleNothingToBill(tx);
     });
     return { seeded: true as const };
   } finally {

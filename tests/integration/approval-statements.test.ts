@@ -9,7 +9,9 @@
 // budget's running total; line; decision; total; timeline; work order; audit; writers; the grouped
 // mail's lookup and row) from 8 files that issue SQL; the route loads 58 files (the shared step,
 // the running total, the line mapper and the decisions' wording are files of their own now),
-// 59 once the photo addresses moved out of the upload glue into lib/uploads/photo-urls.ts.
+// 59 once the photo addresses moved out of the upload glue into lib/uploads/photo-urls.ts, 60
+// with the formatters built once per process (lib/intl-cache.ts), 61 with the invoice's one shape
+// (lib/records/invoice.ts, which the mail worker's invoice attachments load).
 // The bounds below are today's figures, so neither can silently grow back.
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as decideOne } from "@/app/api/v1/lines/[id]/decision/route";
@@ -22,7 +24,7 @@ import { lineByDescription, workOrderByNumber } from "./helpers/work-orders";
 const SUPERVISOR = "supervisor@brennan-twp.example";
 const ROUTE = "app/api/v1/lines/[id]/decision/route.ts";
 const STATEMENTS_NOW = 13;
-const FILES_LOADED_NOW = 59;
+const FILES_LOADED_NOW = 61;
 
 beforeAll(async () => {
   // The mail worker's own reads after the commit are not the approval's.

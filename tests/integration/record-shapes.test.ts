@@ -1,9 +1,12 @@
 // One shape per record on the way out (issue 12): the decision route answers
 // with the same estimate line the work-order view shows after it, field for
 // field; a unit's deferred lines and past visits carry the same fields as the
-// detail's lines and the work-order list.
+// detail's lines and the work-order list; an invoice in the list is its detail's
+// own fields (lib/records/invoice.ts).
 import { describe, expect, it } from "vitest";
 import { POST as decideOne } from "@/app/api/v1/lines/[id]/decision/route";
+import { GET as getInvoice } from "@/app/api/v1/invoices/[id]/route";
+import { GET as listInvoices } from "@/app/api/v1/invoices/route";
 import { GET as getUnit } from "@/app/api/v1/units/[id]/route";
 import { GET as getWorkOrder } from "@/app/api/v1/work-orders/[id]/route";
 import { POST as decideBatch } from "@/app/api/v1/work-orders/[id]/decisions/route";
@@ -62,5 +65,18 @@ describe("one shape per record", () => {
     const listed = list.body.workOrders.find((w) => w.id === wo.id)!;
     const past = unit.body.workOrders.find((w) => w.id === wo.id)!;
     for (const key of ["id", "number", "label", "unitId", "accountId", "status", "title", "promisedAt", "updatedAt"]) expect(past[key]).toEqual(listed[key]);
+  });
+
+  it("gives each invoice in the list the fields of its detail, with the same values", async () => {
+    const list = await call<{ invoices: Line[] }>(listInvoices, { path: "/api/v1/invoices?limit=100", as: SUPERVISOR });
+    expect(list.status).toBe(200);
+    // The demo has open, part-paid, paid and void invoices for the account (demo-invoices.test.ts).
+    expect(new Set(list.body.invoices.map((i) => i.paymentState)).size).toBeGreaterThanOrEqual(3);
+    for (const listed of list.body.invoices) {
+      const detail = await call<Line>(getInvoice, { path: `/api/v1/invoices/${listed.id}`, params: { id: listed.id }, as: SUPERVISOR });
+      expect(detail.status).toBe(200);
+      const { unitNumber: _unitNumber, ...own } = listed;
+      expect(detail.body).toMatchObject(own);
+    }
   });
 });

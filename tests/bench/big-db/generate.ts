@@ -15,6 +15,7 @@ import { performance } from "node:perf_hooks";
 import { createClient } from "@libsql/client";
 import { eq, sql } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/libsql";
+import { settleNothingToBill } from "@/db/queries/billing-state";
 import { budgetUsedCents, rebuildBudgetUse } from "@/db/queries/budget-use";
 import { currentFiscalYear } from "@/db/queries/estimate-context";
 import * as schema from "@/db/schema";
@@ -140,6 +141,8 @@ export async function generateDatabase(url: string, scale: Scale, log: (line: st
 
     // The running budget totals, counted again over the history just written (the demo seed's are stale now).
     await rebuildBudgetUse(db, new Date(now));
+    // Which visits still wait to be invoiced, from the invoices and lines just written.
+    await settleNothingToBill(db);
     // The demo keeps its own budgets; the big database's are set from what its history spent.
     if (scale === "big") await setBudgets(db, accounts, demo.township.id);
     await client.execute("PRAGMA journal_mode = WAL");
