@@ -1058,8 +1058,8 @@ export interface components {
             accountId: string;
             accountName: string;
             workOrderId: string;
+            /** @description As people read it: "W-1042". */
             workOrderNumber: string;
-            unitNumber: string;
             poNumber: string | null;
             /** @enum {string} */
             status: "open" | "paid" | "void";
@@ -1076,6 +1076,7 @@ export interface components {
             paidCents: number;
             creditedCents: number;
             balanceCents: number;
+            unitNumber: string;
         };
         InvoiceList: {
             invoices: components["schemas"]["InvoiceSummary"][];
@@ -1089,23 +1090,28 @@ export interface components {
             accountId: string;
             accountName: string;
             workOrderId: string;
+            /** @description As people read it: "W-1042". */
             workOrderNumber: string;
-            unitId: string;
+            poNumber: string | null;
             /** @enum {string} */
             status: "open" | "paid" | "void";
             /** @enum {string} */
             paymentState: "open" | "partly_paid" | "paid" | "void";
             /** Format: date-time */
             issuedAt: string;
-            /** Format: date */
-            issuedOn: string;
             /**
              * Format: date
              * @description The day it falls due, in the shop's time zone (YYYY-MM-DD).
              */
             dueAt: string;
+            totalCents: number;
+            paidCents: number;
+            creditedCents: number;
+            balanceCents: number;
+            unitId: string;
+            /** Format: date */
+            issuedOn: string;
             termsDays: number;
-            poNumber: string | null;
             billTo: {
                 accountName: string;
                 address: string;
@@ -1160,10 +1166,6 @@ export interface components {
                 coreCents: number;
                 totalCents: number;
             };
-            totalCents: number;
-            paidCents: number;
-            creditedCents: number;
-            balanceCents: number;
             payments: {
                 id: string;
                 /** @enum {string} */
@@ -1226,8 +1228,8 @@ export interface components {
                 accountId: string;
                 accountName: string;
                 workOrderId: string;
+                /** @description As people read it: "W-1042". */
                 workOrderNumber: string;
-                unitNumber: string;
                 poNumber: string | null;
                 /** @enum {string} */
                 status: "open" | "paid" | "void";
@@ -1244,6 +1246,7 @@ export interface components {
                 paidCents: number;
                 creditedCents: number;
                 balanceCents: number;
+                unitNumber: string;
                 daysPastDue: number;
                 /** @enum {string} */
                 bucket: "current" | "days1to30" | "days31to60" | "days61to90" | "over90";

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { INVOICE_STATUSES, PAYMENT_METHODS } from "@/lib/domain";
+import { PAYMENT_STATE_LABELS, type PaymentState } from "@/lib/invoices/balance";
 import { calendarDate, cents, id, instant, named, nextCursor } from "../components";
 import { lineKind, role } from "./common";
 
@@ -46,30 +47,30 @@ export const accountPatchResult = named(
 );
 
 const invoiceStatus = z.enum(INVOICE_STATUSES);
-const paymentState = z.enum(["open", "partly_paid", "paid", "void"]);
+// The keys of the labels the pages show, so a new state cannot be missed here.
+const paymentState = z.enum(Object.keys(PAYMENT_STATE_LABELS) as [PaymentState, ...PaymentState[]]);
 
-export const invoiceSummary = named(
-  "InvoiceSummary",
-  z.object({
-    id,
-    number: z.number().int(),
-    label: z.string(),
-    accountId: id,
-    accountName: z.string(),
-    workOrderId: id,
-    workOrderNumber: z.string(),
-    unitNumber: z.string(),
-    poNumber: z.string().nullable(),
-    status: invoiceStatus,
-    paymentState,
-    issuedAt: instant,
-    dueAt: calendarDate.describe("The day it falls due, in the shop's time zone (YYYY-MM-DD)."),
-    totalCents: cents,
-    paidCents: cents,
-    creditedCents: cents,
-    balanceCents: cents,
-  }),
-);
+/** An invoice's own fields: what `invoiceOut` (lib/records/invoice.ts) answers; the list and the detail add theirs. */
+export const invoiceFields = z.object({
+  id,
+  number: z.number().int(),
+  label: z.string(),
+  accountId: id,
+  accountName: z.string(),
+  workOrderId: id,
+  workOrderNumber: z.string().describe('As people read it: "W-1042".'),
+  poNumber: z.string().nullable(),
+  status: invoiceStatus,
+  paymentState,
+  issuedAt: instant,
+  dueAt: calendarDate.describe("The day it falls due, in the shop's time zone (YYYY-MM-DD)."),
+  totalCents: cents,
+  paidCents: cents,
+  creditedCents: cents,
+  balanceCents: cents,
+});
+
+export const invoiceSummary = named("InvoiceSummary", invoiceFields.extend({ unitNumber: z.string() }));
 
 export const invoiceList = named("InvoiceList", z.object({ invoices: z.array(invoiceSummary), nextCursor }));
 
@@ -78,22 +79,10 @@ const invoiceRef = z.object({ id, number: z.number().int(), label: z.string() })
 
 export const invoiceDetail = named(
   "InvoiceDetail",
-  z.object({
-    id,
-    number: z.number().int(),
-    label: z.string(),
-    accountId: id,
-    accountName: z.string(),
-    workOrderId: id,
-    workOrderNumber: z.string(),
+  invoiceFields.extend({
     unitId: id,
-    status: invoiceStatus,
-    paymentState,
-    issuedAt: instant,
     issuedOn: calendarDate,
-    dueAt: calendarDate.describe("The day it falls due, in the shop's time zone (YYYY-MM-DD)."),
     termsDays: z.number().int(),
-    poNumber: z.string().nullable(),
     billTo: z.object({ accountName: z.string(), address: z.string(), email: z.string(), phone: z.string(), contactName: z.string() }),
     shop: z.object({ name: z.string(), addressLines: z.array(z.string()), phone: z.string(), email: z.string(), footer: z.string() }).nullable(),
     unit: z
@@ -136,10 +125,6 @@ export const invoiceDetail = named(
       coreCents: cents,
       totalCents: cents,
     }),
-    totalCents: cents,
-    paidCents: cents,
-    creditedCents: cents,
-    balanceCents: cents,
     payments: z.array(
       z.object({
         id,

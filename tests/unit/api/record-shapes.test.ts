@@ -4,9 +4,11 @@
 import { describe, expect, expectTypeOf, it } from "vitest";
 import type { z } from "zod";
 import { buildOpenApiDocument } from "@/lib/api-schema/document";
+import type { invoiceFields } from "@/lib/api-schema/responses/accounts";
 import type { deferredLine } from "@/lib/api-schema/responses/units";
 import type { estimateLine, lineDecision, workOrderFields } from "@/lib/api-schema/responses/work-orders";
 import { decisionOut, lineFieldsOut, lineOut, type DecisionOut, type LineFields, type LineOut } from "@/lib/records/estimate-line";
+import { invoiceOut, type InvoiceOut } from "@/lib/records/invoice";
 import { workOrderOut, type WorkOrderOut } from "@/lib/records/work-order";
 import { responseChecker } from "@/tests/support/openapi-responses";
 
@@ -37,6 +39,7 @@ describe("the records' shapes and their schemas", () => {
     expectTypeOf<LineOut>().toEqualTypeOf<z.output<typeof estimateLine>>();
     expectTypeOf<DecisionOut>().toEqualTypeOf<z.output<typeof lineDecision>>();
     expectTypeOf<WorkOrderOut>().toEqualTypeOf<z.output<typeof workOrderFields>>();
+    expectTypeOf<InvoiceOut>().toEqualTypeOf<z.output<typeof invoiceFields>>();
     type Deferred = ReturnType<typeof lineFieldsOut> & { workOrderId: string; updatedAt: string };
     expectTypeOf<{ [K in keyof Deferred]: Deferred[K] }>().toEqualTypeOf<z.output<typeof deferredLine>>();
   });
@@ -58,5 +61,26 @@ describe("the records' shapes and their schemas", () => {
     const validate = checker.component("MovedWorkOrder");
     expect(validate(moved), JSON.stringify(validate.errors)).toBe(true);
     expect(out.label).toBe("W-1042");
+  });
+
+  it("an invoice from invoiceOut, with the list's unit number, is an InvoiceSummary of the document", () => {
+    const out = invoiceOut({
+      id: "in_1",
+      number: 2031,
+      accountId: "ac_1",
+      accountName: "Brennan Township",
+      workOrderId: "wo_1",
+      workOrderNumber: 1042,
+      status: "open",
+      issuedAt: "2026-03-02T15:04:05.000Z",
+      dueOn: "2026-04-01",
+      poNumber: null,
+      totalCents: 10_000,
+      paidCents: 2_500,
+      creditedCents: 0,
+    });
+    const validate = checker.component("InvoiceSummary");
+    expect(validate({ ...out, unitNumber: "T-14" }), JSON.stringify(validate.errors)).toBe(true);
+    expect(validate(out)).toBe(false);
   });
 });
