@@ -11,7 +11,8 @@
 // the running total, the line mapper and the decisions' wording are files of their own now),
 // 59 once the photo addresses moved out of the upload glue into lib/uploads/photo-urls.ts, 60
 // with the formatters built once per process (lib/intl-cache.ts), 61 with the invoice's one shape
-// (lib/records/invoice.ts, which the mail worker's invoice attachments load).
+// (lib/records/invoice.ts, which the mail worker's invoice attachments load), 62 with the route
+// inputs shared with the OpenAPI description (lib/validation/api-queries.ts, where idParams lives).
 // The bounds below are today's figures, so neither can silently grow back.
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as decideOne } from "@/app/api/v1/lines/[id]/decision/route";
@@ -24,7 +25,7 @@ import { lineByDescription, workOrderByNumber } from "./helpers/work-orders";
 const SUPERVISOR = "supervisor@brennan-twp.example";
 const ROUTE = "app/api/v1/lines/[id]/decision/route.ts";
 const STATEMENTS_NOW = 13;
-const FILES_LOADED_NOW = 61;
+const FILES_LOADED_NOW = 62;
 
 beforeAll(async () => {
   // The mail worker's own reads after the commit are not the approval's.
