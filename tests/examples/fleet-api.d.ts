@@ -1487,6 +1487,8 @@ export interface components {
             createdAt: string;
             /** Format: date-time */
             updatedAt: string;
+            /** @description True once the visit has nothing left to invoice: it has a live invoice, or it was released with no approved work. Always false at check-in. */
+            nothingToBill: boolean;
             /** @description As people read it: "W-1042". */
             label: string;
             concerns: {

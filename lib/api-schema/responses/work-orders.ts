@@ -136,6 +136,7 @@ const workOrderRecord = {
   createdBy: id.nullable(),
   createdAt: instant,
   updatedAt: instant,
+  nothingToBill: z.boolean().describe("True once the visit has nothing left to invoice: it has a live invoice, or it was released with no approved work. Always false at check-in."),
 };
 
 export const checkedInWorkOrder = named(
