@@ -18,8 +18,9 @@ function SchemaName({ name }: { name: string | null }) {
 
 function FieldTable({ fields, caption, withIn }: { fields: (FieldView & { in?: string })[]; caption: string; withIn?: boolean }) {
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full border-collapse text-left text-sm">
+    <div>
+      {/* Cells wrap long names rather than scroll the table sideways on a phone. */}
+      <table className="w-full border-collapse text-left text-sm [overflow-wrap:anywhere]">
         <caption className="sr-only">{caption}</caption>
         <thead>
           <tr className="border-b border-rule">

@@ -9,7 +9,8 @@ export function CopyCommand({ label, command }: { label: string; command: string
   return (
     <figure className="flex flex-col gap-2">
       <figcaption className="text-sm font-semibold">{label}</figcaption>
-      <pre className="overflow-x-auto rounded bg-white p-3 text-sm" data-testid="copy-command">
+      {/* Wrapped rather than scrolled, so no region needs a tab stop of its own. */}
+      <pre className="rounded bg-white p-3 text-sm break-all whitespace-pre-wrap" data-testid="copy-command">
         <code>{command}</code>
       </pre>
       <div className="flex items-center gap-3">

@@ -1058,7 +1058,7 @@ export interface components {
             accountId: string;
             accountName: string;
             workOrderId: string;
-            /** @description As people read it: "W-1042". */
+            /** @description As people read it: "W-" and the number. */
             workOrderNumber: string;
             poNumber: string | null;
             /** @enum {string} */
@@ -1090,7 +1090,7 @@ export interface components {
             accountId: string;
             accountName: string;
             workOrderId: string;
-            /** @description As people read it: "W-1042". */
+            /** @description As people read it: "W-" and the number. */
             workOrderNumber: string;
             poNumber: string | null;
             /** @enum {string} */
@@ -1228,7 +1228,7 @@ export interface components {
                 accountId: string;
                 accountName: string;
                 workOrderId: string;
-                /** @description As people read it: "W-1042". */
+                /** @description As people read it: "W-" and the number. */
                 workOrderNumber: string;
                 poNumber: string | null;
                 /** @enum {string} */
@@ -1401,7 +1401,7 @@ export interface components {
         WorkOrderDetail: {
             id: string;
             number: number;
-            /** @description As people read it: "W-1042". */
+            /** @description As people read it: "W-" and the number. */
             label: string;
             unitId: string;
             accountId: string;
@@ -1442,7 +1442,7 @@ export interface components {
         WorkOrderSummary: {
             id: string;
             number: number;
-            /** @description As people read it: "W-1042". */
+            /** @description As people read it: "W-" and the number. */
             label: string;
             unitId: string;
             accountId: string;
@@ -1489,7 +1489,7 @@ export interface components {
             updatedAt: string;
             /** @description True once the visit has nothing left to invoice: it has a live invoice, or it was released with no approved work. Always false at check-in. */
             nothingToBill: boolean;
-            /** @description As people read it: "W-1042". */
+            /** @description As people read it: "W-" and the number. */
             label: string;
             concerns: {
                 complaint: string;
@@ -1499,7 +1499,7 @@ export interface components {
         MovedWorkOrder: {
             id: string;
             number: number;
-            /** @description As people read it: "W-1042". */
+            /** @description As people read it: "W-" and the number. */
             label: string;
             unitId: string;
             accountId: string;
@@ -1687,7 +1687,7 @@ export interface components {
             workOrders: {
                 id: string;
                 number: number;
-                /** @description As people read it: "W-1042". */
+                /** @description As people read it: "W-" and the number. */
                 label: string;
                 unitId: string;
                 accountId: string;

@@ -58,7 +58,7 @@ export const invoiceFields = z.object({
   accountId: id,
   accountName: z.string(),
   workOrderId: id,
-  workOrderNumber: z.string().describe('As people read it: "W-1042".'),
+  workOrderNumber: z.string().describe('As people read it: "W-" and the number.'),
   poNumber: z.string().nullable(),
   status: invoiceStatus,
   paymentState,

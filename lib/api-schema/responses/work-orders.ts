@@ -39,7 +39,7 @@ export const estimateLine = named("EstimateLine", estimateLineFields.extend({ de
 export const workOrderFields = z.object({
   id,
   number: z.number().int(),
-  label: z.string().describe('As people read it: "W-1042".'),
+  label: z.string().describe('As people read it: "W-" and the number.'),
   unitId: id,
   accountId: id,
   status: workOrderStatus,

@@ -1,55 +1,17 @@
 import type { Metadata } from "next";
-import Link from "next/link";
-import { ApiReference } from "@/components/api-reference/api-reference";
-import { CopyCommand } from "@/components/api-reference/copy-command";
-import { Card, CardTitle } from "@/components/ui/card";
-import { PageHeader } from "@/components/ui/page-header";
-import { buildOpenApiDocument } from "@/lib/api-schema/document";
-import { referenceView } from "@/lib/api-schema/reference";
-import { CAN, isStaff } from "@/lib/auth/policy";
-import { env } from "@/lib/env";
+import { ReferencePage } from "@/components/api-reference/reference-page";
+import { CAN } from "@/lib/auth/policy";
 import { requirePageRole } from "@/lib/server/auth/page-access";
 
 export const metadata: Metadata = { title: "Fleet API reference" };
 
-/** The fleet API's reference for people: who may open the tokens page may read it (the same guard, first). */
-export default async function ApiReferencePage() {
-  const user = await requirePageRole(CAN.anyone);
-  const view = referenceView(buildOpenApiDocument());
-  const origin = env().NEXTAUTH_URL.replace(/\/$/, "");
-  const tokensHref = isStaff(user) ? "/settings/tokens" : "/fleet/settings/tokens";
-  const operations = view.tags.reduce((n, t) => n + t.operations.length, 0);
-  return (
-    <>
-      <PageHeader title="Fleet API reference" kicker={`OpenAPI 3.1 · version ${view.version} · ${operations} operations`} />
-      <div className="flex flex-col gap-4">
-        <Card>
-          <CardTitle>Start here</CardTitle>
-          <p className="text-sm">{view.description}</p>
-          <ol className="mt-2 list-decimal pl-5 text-sm">
-            <li>
-              Create a personal token under <Link href={tokensHref}>API tokens</Link>. It is shown once; keep it in your script&apos;s secrets, not in its code.
-            </li>
-            <li>
-              Send it on every request as <code>Authorization: Bearer ctr_…</code>. It acts with your role and your account, nothing more; revoke it there when the script retires.
-            </li>
-            <li>
-              The machine-readable description is at <a href="/api/v1/openapi.json">/api/v1/openapi.json</a>; tools that read OpenAPI 3.1 check requests and answers against it.
-            </li>
-          </ol>
-        </Card>
-        <Card>
-          <CardTitle>Try it</CardTitle>
-          <div className="flex flex-col gap-4">
-            <CopyCommand label="Your units in the shop" command={`curl -H "Authorization: Bearer $COTTER_TOKEN" "${origin}/api/v1/units?inShop=true"`} />
-            <CopyCommand
-              label="A typed client: types from the description, calls through openapi-fetch"
-              command={`npx openapi-typescript ${origin}/api/v1/openapi.json -o fleet-api.d.ts\nnpm install openapi-fetch`}
-            />
-          </div>
-        </Card>
-        <ApiReference view={view} />
-      </div>
-    </>
-  );
+/**
+ * The shop's copy of the reference, beside its API tokens page. The guard names
+ * the shop's roles (the tokens page's CAN.anyone, less the fleet people the
+ * shop layout refuses): Next renders a page beside its layout, so the page
+ * itself must refuse before the reference reaches the response.
+ */
+export default async function ShopApiReferencePage() {
+  await requirePageRole(CAN.shopStaff);
+  return <ReferencePage tokensHref="/settings/tokens" />;
 }
