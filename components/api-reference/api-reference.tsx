@@ -7,6 +7,15 @@ import type { AnswerView, FieldView, OperationView, ReferenceView, SchemaView } 
  */
 const schemaAnchor = (name: string) => `schema-${name}`;
 
+/** The document's descriptions mark code with backticks (CommonMark, as OpenAPI allows); shown as code here. */
+export function Words({ text }: { text: string }) {
+  return (
+    <>
+      {text.split(/(`[^`]+`)/).map((part, i) => (part.startsWith("`") && part.endsWith("`") && part.length > 2 ? <code key={i}>{part.slice(1, -1)}</code> : part))}
+    </>
+  );
+}
+
 function SchemaName({ name }: { name: string | null }) {
   if (!name) return null;
   return (
@@ -39,7 +48,9 @@ function FieldTable({ fields, caption, withIn }: { fields: (FieldView & { in?: s
               </td>
               {withIn ? <td className="py-1 pr-3">{f.in}</td> : null}
               <td className="py-1 pr-3 break-words">{f.type}</td>
-              <td className="py-1">{f.description}</td>
+              <td className="py-1">
+                <Words text={f.description} />
+              </td>
             </tr>
           ))}
         </tbody>
@@ -51,7 +62,7 @@ function FieldTable({ fields, caption, withIn }: { fields: (FieldView & { in?: s
 function Answer({ a }: { a: AnswerView }) {
   return (
     <li className="py-1">
-      <span className="font-mono font-semibold">{a.status}</span> {a.description}{" "}
+      <span className="font-mono font-semibold">{a.status}</span> <Words text={a.description} />{" "}
       {a.mediaType ? <span className="text-ink-soft">({a.mediaType}{a.schema ? ", " : ""}</span> : null}
       {a.schema ? <SchemaName name={a.schema} /> : null}
       {a.mediaType ? <span className="text-ink-soft">)</span> : null}
@@ -81,10 +92,12 @@ function Operation({ op }: { op: OperationView }) {
         .split("\n\n")
         .filter(Boolean)
         .map((para) => (
-          <p key={para} className="mt-1 text-sm">{para}</p>
+          <p key={para} className="mt-1 text-sm">
+            <Words text={para} />
+          </p>
         ))}
       <p className="mt-1 text-sm text-ink-soft">
-        Operation <code>{op.id}</code> · {op.open ? "no token needed" : `roles: ${op.roles.join(", ")}`}
+        Operation <code>{op.id}</code>
       </p>
       {op.parameters.length ? (
         <div className="mt-3">
@@ -99,7 +112,12 @@ function Operation({ op }: { op: OperationView }) {
             {op.body.mediaType}
             {op.body.schema ? ": " : ""}
             <SchemaName name={op.body.schema} />
-            {op.body.description ? ` — ${op.body.description}` : ""}
+            {op.body.description ? (
+              <>
+                {" — "}
+                <Words text={op.body.description} />
+              </>
+            ) : null}
           </p>
         </div>
       ) : null}
@@ -119,7 +137,11 @@ function Schema({ s }: { s: SchemaView }) {
   return (
     <section id={schemaAnchor(s.name)} aria-labelledby={`${schemaAnchor(s.name)}-title`} className="border-t border-rule py-3">
       <h3 id={`${schemaAnchor(s.name)}-title`} className="font-mono text-base font-bold">{s.name}</h3>
-      {s.description ? <p className="text-sm">{s.description}</p> : null}
+      {s.description ? (
+        <p className="text-sm">
+          <Words text={s.description} />
+        </p>
+      ) : null}
       {s.fields.length ? <FieldTable fields={s.fields} caption={`Fields of ${s.name}`} /> : <p className="text-sm">{s.type}</p>}
     </section>
   );
@@ -146,7 +168,9 @@ export function ApiReference({ view }: { view: ReferenceView }) {
       {view.tags.map((t) => (
         <section key={t.name} id={`tag-${t.name.replaceAll(" ", "-")}`} aria-labelledby={`tag-${t.name.replaceAll(" ", "-")}-title`}>
           <h2 id={`tag-${t.name.replaceAll(" ", "-")}-title`} className="text-xl font-bold">{t.name}</h2>
-          <p className="text-sm text-ink-soft">{t.description}</p>
+          <p className="text-sm text-ink-soft">
+            <Words text={t.description} />
+          </p>
           {t.operations.map((op) => (
             <Operation key={op.id} op={op} />
           ))}

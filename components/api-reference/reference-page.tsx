@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { ApiReference } from "@/components/api-reference/api-reference";
+import { ApiReference, Words } from "@/components/api-reference/api-reference";
 import { CopyCommand } from "@/components/api-reference/copy-command";
 import { Card, CardTitle } from "@/components/ui/card";
 import { PageHeader } from "@/components/ui/page-header";
@@ -18,7 +18,9 @@ export function ReferencePage({ tokensHref }: { tokensHref: string }) {
       <div className="flex flex-col gap-4">
         <Card>
           <CardTitle>Start here</CardTitle>
-          <p className="text-sm">{view.description}</p>
+          <p className="text-sm">
+            <Words text={view.description} />
+          </p>
           <ol className="mt-2 list-decimal pl-5 text-sm">
             <li>
               Create a personal token under <Link href={tokensHref}>API tokens</Link>. It is shown once; keep it in your script&apos;s secrets, not in its code.
