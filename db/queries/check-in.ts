@@ -118,7 +118,15 @@ export async function checkIn(user: SessionUser, input: CheckInInput, notify?: I
         accountId: unit.accountId,
         detail: { number: wo!.number, unit: unit.unitNumber, concerns: complaints.length, serviceRequestId: request?.id ?? null },
       });
-      const checkedIn = { ...wo!, ...workOrderOut(wo!), concerns: complaints.map((complaint) => ({ complaint })), serviceRequestId: request?.id ?? null };
+      // The work order's one shape and what check-in adds to it; internal columns stay inside.
+      const checkedIn = {
+        ...workOrderOut(wo!),
+        assignedTechId: wo!.assignedTechId,
+        poNumber: wo!.poNumber,
+        openedAt: wo!.openedAt,
+        concerns: complaints.map((complaint) => ({ complaint })),
+        serviceRequestId: request?.id ?? null,
+      };
       await notify?.(tx, checkedIn);
       return checkedIn;
     });

@@ -1471,26 +1471,19 @@ export interface components {
         CheckedInWorkOrder: {
             id: string;
             number: number;
+            /** @description As people read it: "W-" and the number. */
+            label: string;
             unitId: string;
             accountId: string;
             status: components["schemas"]["WorkOrderStatus"];
             title: string;
-            assignedTechId: string | null;
             promisedAt: string | null;
+            /** Format: date-time */
+            updatedAt: string;
+            assignedTechId: string | null;
             poNumber: string | null;
             /** Format: date-time */
             openedAt: string;
-            sentForApprovalAt: string | null;
-            releasedAt: string | null;
-            createdBy: string | null;
-            /** Format: date-time */
-            createdAt: string;
-            /** Format: date-time */
-            updatedAt: string;
-            /** @description True once the visit has nothing left to invoice: it has a live invoice, or it was released with no approved work. Always false at check-in. */
-            nothingToBill: boolean;
-            /** @description As people read it: "W-" and the number. */
-            label: string;
             concerns: {
                 complaint: string;
             }[];

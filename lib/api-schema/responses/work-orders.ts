@@ -119,29 +119,15 @@ export const workOrderSummary = named(
 
 export const workOrderList = named("WorkOrderList", z.object({ workOrders: z.array(workOrderSummary), nextCursor }));
 
-/** The work-order row as it is stored (check-in answers it). */
-const workOrderRecord = {
-  id,
-  number: z.number().int(),
-  unitId: id,
-  accountId: id,
-  status: workOrderStatus,
-  title: z.string(),
-  assignedTechId: id.nullable(),
-  promisedAt: instant.nullable(),
-  poNumber: z.string().nullable(),
-  openedAt: instant,
-  sentForApprovalAt: instant.nullable(),
-  releasedAt: instant.nullable(),
-  createdBy: id.nullable(),
-  createdAt: instant,
-  updatedAt: instant,
-  nothingToBill: z.boolean().describe("True once the visit has nothing left to invoice: it has a live invoice, or it was released with no approved work. Always false at check-in."),
-};
-
 export const checkedInWorkOrder = named(
   "CheckedInWorkOrder",
-  z.object({ ...workOrderRecord, ...workOrderFields.shape, concerns: z.array(z.object({ complaint: z.string() })), serviceRequestId: id.nullable() }),
+  workOrderFields.extend({
+    assignedTechId: id.nullable(),
+    poNumber: z.string().nullable(),
+    openedAt: instant,
+    concerns: z.array(z.object({ complaint: z.string() })),
+    serviceRequestId: id.nullable(),
+  }),
 );
 
 export const movedWorkOrder = named(
