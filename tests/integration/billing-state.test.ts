@@ -4,7 +4,7 @@
 // written out again in SQL: a live (not void) invoice, or a released visit with no approved,
 // started or finished line (product.md "Invoices and payments": a visit is invoiced from its done
 // lines; issue 9: a released visit takes no more decisions).
-import { cpSync, mkdtempSync, readFileSync, readdirSync, rmSync, unlinkSync, writeFileSync } from "node:fs";
+import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { eq, sql } from "drizzle-orm";
@@ -17,6 +17,7 @@ import { voidInvoice } from "@/db/queries/payments";
 import { moveStatus } from "@/db/queries/status-writes";
 import { units, workOrders } from "@/db/schema";
 import { asUser, setLines } from "./helpers/billing";
+import { COMMITTED_MIGRATIONS, migrationsUpTo } from "./helpers/migrations";
 
 const TRUTH = sql`
   exists (select 1 from invoices i where i.work_order_id = w.id and i.status <> 'void')
@@ -111,21 +112,13 @@ describe("which visits wait to be invoiced (work_orders.nothing_to_bill)", () =>
 });
 
 describe("migration 0009 on a database that already holds visits", () => {
-  const committed = path.join(import.meta.dirname, "..", "..", "drizzle");
   const dir = mkdtempSync(path.join(tmpdir(), "cotter-billing-state-"));
   afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
+  /** The committed migrations as they stood before the flag (0000–0008). */
   function migrationsBefore(): string {
-    const folder = path.join(dir, "before");
-    cpSync(committed, folder, { recursive: true });
-    const journalPath = path.join(folder, "meta", "_journal.json");
-    const journal = JSON.parse(readFileSync(journalPath, "utf8")) as { entries: { idx: number; tag: string }[] };
-    const kept = journal.entries.filter((e) => e.idx <= 8);
-    expect(kept.at(-1)?.tag).toBe("0008_list_indexes");
-    writeFileSync(journalPath, JSON.stringify({ ...journal, entries: kept }));
-    for (const file of readdirSync(folder)) {
-      if (file.endsWith(".sql") && !kept.some((e) => file === `${e.tag}.sql`)) unlinkSync(path.join(folder, file));
-    }
+    const { folder, lastTag } = migrationsUpTo(dir, 8);
+    expect(lastTag).toBe("0008_list_indexes");
     return folder;
   }
 
@@ -153,7 +146,7 @@ describe("migration 0009 on a database that already holds visits", () => {
       await visit(4, "released", "approved", null); // approved work not yet finished: waits
       await visit(5, "repairing", null, null); // still in the shop: waits
 
-      await migrate(db, { migrationsFolder: committed });
+      await migrate(db, { migrationsFolder: COMMITTED_MIGRATIONS });
       const rows = await client.execute("SELECT number, nothing_to_bill AS flag FROM work_orders ORDER BY number");
       expect(rows.rows.map((r) => [Number(r.number), Number(r.flag)])).toEqual([[1, 1], [2, 0], [3, 1], [4, 0], [5, 0]]);
       expect(await drifted(db)).toEqual([]);

@@ -2,7 +2,7 @@
 // that already holds approvals. It writes no rows (a fiscal year's bounds need the shop's time
 // zone, which SQL cannot apply); reads recount until the first write of a fiscal year makes its
 // row from the recount, so the totals an existing database shows and checks are right at once.
-import { cpSync, mkdtempSync, readFileSync, readdirSync, rmSync, unlinkSync, writeFileSync } from "node:fs";
+import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { sql } from "drizzle-orm";
@@ -11,23 +11,15 @@ import { afterAll, describe, expect, it } from "vitest";
 import { openDatabase } from "@/db/client";
 import { budgetUsedCents, budgetUsedForWrite, moveBudgetUse, recountBudgetUsed } from "@/db/queries/budget-use";
 import { currentFiscalYear } from "@/db/queries/estimate-context";
+import { COMMITTED_MIGRATIONS, migrationsUpTo } from "./helpers/migrations";
 
-const committed = path.join(import.meta.dirname, "..", "..", "drizzle");
 const dir = mkdtempSync(path.join(tmpdir(), "cotter-budget-use-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 /** The committed migrations as they stood before the running total (0000–0006). */
 function migrationsBefore(): string {
-  const folder = path.join(dir, "before");
-  cpSync(committed, folder, { recursive: true });
-  const journalPath = path.join(folder, "meta", "_journal.json");
-  const journal = JSON.parse(readFileSync(journalPath, "utf8")) as { entries: { idx: number; tag: string }[] };
-  const kept = journal.entries.filter((e) => e.idx <= 6);
-  expect(kept.at(-1)?.tag).toBe("0006_unit_search");
-  writeFileSync(journalPath, JSON.stringify({ ...journal, entries: kept }));
-  for (const file of readdirSync(folder)) {
-    if (file.endsWith(".sql") && !kept.some((e) => file === `${e.tag}.sql`)) unlinkSync(path.join(folder, file));
-  }
+  const { folder, lastTag } = migrationsUpTo(dir, 6);
+  expect(lastTag).toBe("0006_unit_search");
   return folder;
 }
 
@@ -53,7 +45,7 @@ describe("account_budget_use (migration 0007)", () => {
       await line("last-year", "done", 70_000, before);
       await line("waiting", "proposed", 9_000, null);
 
-      await migrate(db, { migrationsFolder: committed });
+      await migrate(db, { migrationsFolder: COMMITTED_MIGRATIONS });
       expect((await client.execute("SELECT count(*) AS n FROM account_budget_use")).rows[0]).toMatchObject({ n: 0 });
       expect(await recountBudgetUsed(db, "acct", bounds)).toBe(150_000);
       expect(await budgetUsedCents(db, "acct", bounds)).toBe(150_000);

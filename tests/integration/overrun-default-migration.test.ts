@@ -2,28 +2,21 @@
 // (Florida Statutes 559.909(1)(b), as reference-values.md reads it: the greater of $10 or 10 %,
 // never more than $50). The migration changes only the column default: accounts that exist keep
 // what they have, and nothing that hangs off an account is lost while the table is rebuilt.
-import { cpSync, mkdtempSync, readFileSync, readdirSync, rmSync, unlinkSync, writeFileSync } from "node:fs";
+import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { migrate } from "drizzle-orm/libsql/migrator";
 import { afterAll, describe, expect, it } from "vitest";
 import { openDatabase } from "@/db/client";
+import { COMMITTED_MIGRATIONS, migrationsUpTo } from "./helpers/migrations";
 
-const committed = path.join(import.meta.dirname, "..", "..", "drizzle");
 const dir = mkdtempSync(path.join(tmpdir(), "cotter-overrun-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 /** The committed migrations as they stood before the default changed (0000 and 0001 only). */
 function migrationsBefore(): string {
-  const folder = path.join(dir, "before");
-  cpSync(committed, folder, { recursive: true });
-  const journalPath = path.join(folder, "meta", "_journal.json");
-  const journal = JSON.parse(readFileSync(journalPath, "utf8")) as { entries: { idx: number; tag: string }[] };
-  const kept = journal.entries.filter((e) => e.idx <= 1);
-  writeFileSync(journalPath, JSON.stringify({ ...journal, entries: kept }));
-  for (const file of readdirSync(folder)) {
-    if (file.endsWith(".sql") && !kept.some((e) => file === `${e.tag}.sql`)) unlinkSync(path.join(folder, file));
-  }
+  const { folder, lastTag } = migrationsUpTo(dir, 1);
+  expect(lastTag).toBe("0001_credit_notes");
   return folder;
 }
 
@@ -41,7 +34,7 @@ describe("overrun allowance default (migration)", () => {
       const before = (await client.execute("SELECT * FROM accounts WHERE id = 'old'")).rows[0];
       expect(before).toMatchObject({ overrun_percent_milli: 10_000, overrun_cap_cents: 5_000, overrun_floor_cents: 0 });
 
-      await migrate(db, { migrationsFolder: committed });
+      await migrate(db, { migrationsFolder: COMMITTED_MIGRATIONS });
 
       // Every column the account had keeps its value (later migrations may add columns of their own).
       const after = (await client.execute("SELECT * FROM accounts WHERE id = 'old'")).rows[0]!;
