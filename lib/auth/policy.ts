@@ -12,6 +12,8 @@ export const CAN = {
   decide: ["approver"],
   pay: ["clerk", "approver"],
   readStatement: ["owner", "writer", "clerk", "approver"],
+  /** The fleet portal's own statement page: its account's people who see money. */
+  readOwnStatement: ["clerk", "approver"],
   issueInvoices: ["owner", "writer"],
   enterPoNumber: ["owner", "writer", "clerk", "approver"],
   logOccurrence: ["owner", "writer", "tech", "approver", "clerk", "viewer"],

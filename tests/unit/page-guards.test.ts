@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { CAN } from "@/lib/auth/policy";
 import { appRoutes, fillPattern, pageSource, paramKeys } from "@/tests/support/app-tree";
 
 // Pages anyone may open: signing in (and asking for a reset link), the root that sends people to
@@ -52,5 +53,17 @@ describe("every page guards itself before it reads anything", () => {
       .filter((r) => !/requirePageRole\(/.test(pageSource(r.file)))
       .map((r) => r.pattern);
     expect(unguarded.sort()).toEqual([...PUBLIC_PAGES].sort());
+  });
+
+  // Next renders a page beside its layout: a shop page whose guard lets a fleet person through
+  // would stream its content inside the shop layout's 403 (issue 9). So each page's own guard
+  // names only the roles of its side of the app.
+  const sides = { shop: CAN.shopStaff, fleet: CAN.fleet } as const;
+  const sided = appRoutes().filter((r) => r.kind === "page" && (r.group === "shop" || r.group === "fleet") && !PUBLIC_PAGES.has(r.pattern));
+
+  it.each(sided.map((p) => [p.pattern, p.group as keyof typeof sides, p.file] as const))("%s lets in only the %s side's roles", (_pattern, side, file) => {
+    const key = /requirePageRole\(CAN\.(\w+)\)/.exec(pageSource(file))?.[1] as keyof typeof CAN;
+    const outside = (CAN[key] as readonly string[]).filter((role) => !(sides[side] as readonly string[]).includes(role));
+    expect(outside, `${file} guards with CAN.${key}`).toEqual([]);
   });
 });

@@ -10,7 +10,7 @@ import { CAN } from "@/lib/auth/policy";
 export const metadata: Metadata = { title: "Statement" };
 
 export default async function FleetStatementPage() {
-  const user = await requirePageRole(CAN.readStatement);
+  const user = await requirePageRole(CAN.readOwnStatement);
   if (!user.accountId) notFound();
   const statement = await accountStatement(user, user.accountId, {});
   if (!statement) notFound();

@@ -1,24 +1,16 @@
 import type { Metadata } from "next";
-import { ApiTokens } from "@/components/settings/api-tokens";
-import { ButtonLink } from "@/components/ui/button";
-import { PageHeader } from "@/components/ui/page-header";
-import { listMyTokens } from "@/db/queries/api-tokens";
+import { TokensPage } from "@/components/settings/tokens-page";
+import { CAN } from "@/lib/auth/policy";
 import { requirePageRole } from "@/lib/server/auth/page-access";
-import { CAN, isStaff } from "@/lib/auth/policy";
 
 export const metadata: Metadata = { title: "API tokens" };
 
-export default async function TokensPage() {
-  const user = await requirePageRole(CAN.anyone);
-  const tokens = await listMyTokens(user);
-  return (
-    <>
-      <PageHeader title="Personal API tokens" kicker="For your own scripts, with the Fleet API (/api/v1)">
-        <ButtonLink variant="secondary" href={isStaff(user) ? "/settings/tokens/reference" : "/fleet/settings/tokens/reference"}>
-          API reference
-        </ButtonLink>
-      </PageHeader>
-      <ApiTokens tokens={tokens} />
-    </>
-  );
+/**
+ * The shop's people's tokens. The guard names the shop's roles, not everyone:
+ * Next renders a page beside its layout, so a fleet person refused by the shop
+ * layout would otherwise get their token list inside the 403 (they have their own page).
+ */
+export default async function ShopTokensPage() {
+  const user = await requirePageRole(CAN.shopStaff);
+  return <TokensPage user={user} referenceHref="/settings/tokens/reference" />;
 }
