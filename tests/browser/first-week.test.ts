@@ -6,12 +6,10 @@ import { migrateDatabase } from "@/db/migrate";
 import { withCheckDigit } from "@/lib/vin";
 import type { CaughtMail } from "@/mocks/smtp/server";
 import { mailbox } from "@/tests/support/mailbox";
-import { root, startRunningNextServer, type NextServer } from "@/tests/support/next-server";
-import { startFakeStripe } from "@/mocks/stripe/server";
-import { startFakeUploadThing } from "@/mocks/uploadthing/server";
-import { freePort } from "@/tests/support/ports";
+import { root, type NextServer } from "@/tests/support/next-server";
 import { expectNoSeriousViolations } from "./a11y/axe";
 import { DESKTOP, PHONE, launch, newContext, screenshot } from "./helpers";
+import { startOwnAppServer, type OwnAppServer } from "./own-app-server";
 
 /*
  * The first week of a shop that installs Cotter on an EMPTY database: no demo
@@ -24,8 +22,8 @@ const ALERT = '[role="alert"]:not(#__next-route-announcer__)';
 let browser: Browser;
 // The run's one mail catcher, in a mailbox of this server's own.
 const smtp = mailbox(inject("mailCatcher"), "first-week");
+let server: OwnAppServer;
 let app: NextServer;
-const closers: (() => Promise<unknown>)[] = [];
 const dir = path.join(root, "tests", ".artifacts", "browser-empty");
 
 beforeAll(async () => {
@@ -33,34 +31,19 @@ beforeAll(async () => {
   mkdirSync(dir, { recursive: true });
   const dbUrl = `file:${path.join(dir, "shop.db")}`;
   await migrateDatabase(dbUrl);
-  const uploads = await startFakeUploadThing({ port: 0, storageDir: path.join(dir, "uploads") });
-  const port = await freePort();
-  const payments = await startFakeStripe({ port: 0, webhookUrl: `http://127.0.0.1:${port}/api/webhooks/stripe`, webhookSecret: "whsec_first_week", retryDelaysMs: [500] });
-  closers.push(() => uploads.close(), () => payments.close());
-  app = await startRunningNextServer({
-    distDir: inject("distDir"),
-    port,
-    env: {
-    DATABASE_URL: dbUrl,
-    NEXTAUTH_SECRET: "first-week-secret-first-week-secret-0001",
-    SMTP_URL: smtp.smtpUrl,
-    MAIL_FROM: "Millbrook Diesel & Hydraulic <service@millbrook-diesel.example>",
-    STRIPE_SECRET_KEY: "",
-    // A production server: the fakes only because we say so (lib/env.ts).
-    COTTER_USE_FAKE_STRIPE: "1",
-    COTTER_USE_FAKE_UPLOADTHING: "1",
-    FAKE_STRIPE_PORT: String(payments.port),
-    STRIPE_WEBHOOK_SECRET: "whsec_first_week",
-    FAKE_UPLOADTHING_PORT: new URL(uploads.url).port,
-    },
+  server = await startOwnAppServer({
+    name: "first-week",
+    dir,
+    dbUrl,
+    env: { MAIL_FROM: "Millbrook Diesel & Hydraulic <service@millbrook-diesel.example>" },
   });
+  app = server.app;
   browser = await launch();
 });
 
 afterAll(async () => {
   await browser?.close();
-  await app?.stop();
-  await Promise.all(closers.map((c) => c()));
+  await server?.stop();
 });
 
 const contexts: BrowserContext[] = [];

@@ -1,16 +1,13 @@
 import { mkdirSync, rmSync } from "node:fs";
 import path from "node:path";
 import type { Browser } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { migrateDatabase } from "@/db/migrate";
 import { seedDatabase } from "@/db/seed";
-import { startFakeStripe } from "@/mocks/stripe/server";
-import { startFakeUploadThing } from "@/mocks/uploadthing/server";
 import { runFleetExample } from "@/tests/examples/fleet-client";
-import { mailbox } from "@/tests/support/mailbox";
-import { root, startRunningNextServer, type NextServer } from "@/tests/support/next-server";
-import { freePort } from "@/tests/support/ports";
+import { root, type NextServer } from "@/tests/support/next-server";
 import { DESKTOP, launch, newContext, screenshot, signIn } from "./helpers";
+import { startOwnAppServer, type OwnAppServer } from "./own-app-server";
 
 /*
  * A fleet's IT person, as they would work: signs in, makes a personal API
@@ -20,8 +17,8 @@ import { DESKTOP, launch, newContext, screenshot, signIn } from "./helpers";
  * so the approval it makes changes nothing the other browser tests read.
  */
 let browser: Browser;
+let server: OwnAppServer;
 let app: NextServer;
-const closers: (() => Promise<unknown>)[] = [];
 const dir = path.join(root, "tests", ".artifacts", "browser-fleet-client");
 
 beforeAll(async () => {
@@ -30,32 +27,14 @@ beforeAll(async () => {
   const dbUrl = `file:${path.join(dir, "cotter.db")}`;
   await migrateDatabase(dbUrl);
   await seedDatabase(dbUrl, { photos: false });
-  const uploads = await startFakeUploadThing({ port: 0, storageDir: path.join(dir, "uploads") });
-  const port = await freePort();
-  const payments = await startFakeStripe({ port: 0, webhookUrl: `http://127.0.0.1:${port}/api/webhooks/stripe`, webhookSecret: "whsec_fleet_client", retryDelaysMs: [500] });
-  closers.push(() => uploads.close(), () => payments.close());
-  app = await startRunningNextServer({
-    distDir: inject("distDir"),
-    port,
-    env: {
-      DATABASE_URL: dbUrl,
-      NEXTAUTH_SECRET: "fleet-client-secret-fleet-client-secret-01",
-      SMTP_URL: mailbox(inject("mailCatcher"), "fleet-client").smtpUrl,
-      STRIPE_SECRET_KEY: "",
-      COTTER_USE_FAKE_STRIPE: "1",
-      COTTER_USE_FAKE_UPLOADTHING: "1",
-      FAKE_STRIPE_PORT: String(payments.port),
-      STRIPE_WEBHOOK_SECRET: "whsec_fleet_client",
-      FAKE_UPLOADTHING_PORT: new URL(uploads.url).port,
-    },
-  });
+  server = await startOwnAppServer({ name: "fleet-client", dir, dbUrl });
+  app = server.app;
   browser = await launch();
 });
 
 afterAll(async () => {
   await browser?.close();
-  await app?.stop();
-  await Promise.all(closers.map((c) => c()));
+  await server?.stop();
 });
 
 describe("the fleet API, used as a fleet uses it", () => {
