@@ -1606,16 +1606,16 @@ export interface components {
             year: number | null;
             description: string;
             plate: string;
-            notes: string;
             lastInspectionOn: string | null;
             inspectionBasis: ("periodic" | "state") | null;
             inspectionDueOn: string | null;
             keyOffDrainLimitMa: number | null;
             retiredAt: string | null;
             /** Format: date-time */
-            createdAt: string;
-            /** Format: date-time */
             updatedAt: string;
+            notes: string;
+            /** Format: date-time */
+            createdAt: string;
         };
         DeferredLine: {
             id: string;
@@ -1649,6 +1649,7 @@ export interface components {
         };
         UnitDetail: {
             id: string;
+            accountId: string;
             unitNumber: string;
             vin: string | null;
             serialOnly: boolean;
@@ -1656,8 +1657,6 @@ export interface components {
             year: number | null;
             description: string;
             plate: string;
-            accountId: string;
-            accountName: string;
             lastInspectionOn: string | null;
             inspectionBasis: ("periodic" | "state") | null;
             inspectionDueOn: string | null;
@@ -1665,6 +1664,7 @@ export interface components {
             retiredAt: string | null;
             /** Format: date-time */
             updatedAt: string;
+            accountName: string;
             status: components["schemas"]["WorkOrderStatus"] | null;
             workOrderId: string | null;
             meterReadings: {

@@ -29,29 +29,27 @@ export const unitSummary = named(
 
 export const unitList = named("UnitList", z.object({ units: z.array(unitSummary), nextCursor }));
 
+/** The fields of a unit both the stored record and the detail carry. */
+const unitFields = {
+  id,
+  accountId: id,
+  unitNumber: z.string(),
+  vin: z.string().nullable(),
+  serialOnly: z.boolean(),
+  serialNumber: z.string().nullable(),
+  year: z.number().int().nullable(),
+  description: z.string(),
+  plate: z.string(),
+  lastInspectionOn: calendarDate.nullable(),
+  inspectionBasis,
+  inspectionDueOn: calendarDate.nullable(),
+  keyOffDrainLimitMa: z.number().nullable(),
+  retiredAt: instant.nullable(),
+  updatedAt: instant,
+};
+
 /** The unit as stored: what POST and PATCH answer. */
-export const unitRecord = named(
-  "Unit",
-  z.object({
-    id,
-    accountId: id,
-    unitNumber: z.string(),
-    vin: z.string().nullable(),
-    serialOnly: z.boolean(),
-    serialNumber: z.string().nullable(),
-    year: z.number().int().nullable(),
-    description: z.string(),
-    plate: z.string(),
-    notes: z.string(),
-    lastInspectionOn: calendarDate.nullable(),
-    inspectionBasis,
-    inspectionDueOn: calendarDate.nullable(),
-    keyOffDrainLimitMa: z.number().nullable(),
-    retiredAt: instant.nullable(),
-    createdAt: instant,
-    updatedAt: instant,
-  }),
-);
+export const unitRecord = named("Unit", z.object({ ...unitFields, notes: z.string(), createdAt: instant }));
 
 /** A past or current visit in a unit's history: the work order's own fields and when it came and went. */
 const visitSummary = workOrderFields.extend({
@@ -69,22 +67,8 @@ export const deferredLine = named(
 export const unitDetail = named(
   "UnitDetail",
   z.object({
-    id,
-    unitNumber: z.string(),
-    vin: z.string().nullable(),
-    serialOnly: z.boolean(),
-    serialNumber: z.string().nullable(),
-    year: z.number().int().nullable(),
-    description: z.string(),
-    plate: z.string(),
-    accountId: id,
+    ...unitFields,
     accountName: z.string(),
-    lastInspectionOn: calendarDate.nullable(),
-    inspectionBasis,
-    inspectionDueOn: calendarDate.nullable(),
-    keyOffDrainLimitMa: z.number().nullable(),
-    retiredAt: instant.nullable(),
-    updatedAt: instant,
     status: workOrderStatus.nullable(),
     workOrderId: id.nullable(),
     meterReadings: z.array(z.object({ id, kind: meterKind, value: z.number(), meterReplaced: z.boolean(), readAt: instant, note: z.string() })),
