@@ -2,6 +2,7 @@ import { createClient, type Client, type ResultSet } from "@libsql/client";
 import { drizzle, type LibSQLDatabase } from "drizzle-orm/libsql";
 import type { BaseSQLiteDatabase } from "drizzle-orm/sqlite-core";
 import * as schema from "./schema";
+import { installStatementCache } from "./statement-cache";
 import { env } from "@/lib/env";
 
 export type Db = LibSQLDatabase<typeof schema>;
@@ -31,6 +32,7 @@ export function isFileUrl(url: string): boolean {
 }
 
 export function openDatabase(url: string, authToken?: string): Handle {
+  if (isFileUrl(url)) installStatementCache();
   const client = createClient({
     url,
     authToken,

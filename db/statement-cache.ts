@@ -1,0 +1,96 @@
+import Database from "libsql";
+
+type Statement = ReturnType<Database.Database["prepare"]>;
+
+/** Statements kept per connection; the app runs a few hundred distinct ones, so this holds every hot one. */
+export const STATEMENTS_PER_CONNECTION = 300;
+
+interface Cache {
+  generation: number;
+  statements: Map<string, Statement>;
+}
+
+const byConnection = new WeakMap<Database.Database, Cache>();
+// Bumped by anything that may change the schema; every cache made before it is dropped on its next use.
+let generation = 0;
+let installed = false;
+
+/** Schema changes and transaction control are not worth keeping; anything else that is not plain DML may change the schema. */
+function changesSchema(sql: string): boolean {
+  return !/^\s*(select|insert|update|delete|with|replace|begin|commit|rollback|savepoint|release|pragma\s+\w+\s*$)/i.test(sql);
+}
+
+/**
+ * Keeps each connection's prepared statements for reuse.
+ *
+ * The libSQL client (`@libsql/client`, file URLs) prepares every statement
+ * afresh on each `execute` and asks the native side for its columns twice; a
+ * CPU profile of the work-order view put that at about a fifth of the
+ * request. The client offers no cache, so its one entry point is wrapped:
+ * `Database.prototype.prepare` of the `libsql` package it is built on.
+ *
+ * Safe because the client uses a statement synchronously from prepare to its
+ * last row (`all` or `run`), so two callers never hold one at once, and every
+ * use sets the statement's modes (raw, safe integers) again. A statement that
+ * may change the schema empties every cache, and the column list remembered
+ * with a statement goes with it; SQLite re-prepares a stale statement itself.
+ */
+export function installStatementCache(): void {
+  if (installed) return;
+  installed = true;
+  const prepare = Database.prototype.prepare;
+  const exec = Database.prototype.exec;
+
+  Database.prototype.exec = function (this: Database.Database, source: string) {
+    generation += 1;
+    return exec.call(this, source);
+  };
+
+  Database.prototype.prepare = function (this: Database.Database, sql: string) {
+    if (changesSchema(sql)) {
+      generation += 1;
+      return prepare.call(this, sql);
+    }
+    let cache = byConnection.get(this);
+    if (!cache || cache.generation !== generation) {
+      cache = { generation, statements: new Map() };
+      byConnection.set(this, cache);
+    }
+    const hit = cache.statements.get(sql);
+    if (hit) {
+      // Map order is insertion order: moving a hit to the end makes the first key the least recently used.
+      cache.statements.delete(sql);
+      cache.statements.set(sql, hit);
+      return hit;
+    }
+    const statement = remembered(prepare.call(this, sql));
+    cache.statements.set(sql, statement);
+    if (cache.statements.size > STATEMENTS_PER_CONNECTION) cache.statements.delete(cache.statements.keys().next().value!);
+    return statement;
+  } as Database.Database["prepare"];
+}
+
+/** The column list and whether the statement returns rows do not change while the schema does not: ask the native side once. */
+function remembered(statement: Statement): Statement {
+  let columns: ReturnType<Statement["columns"]> | undefined;
+  let notReader: unknown;
+  const ownColumns = statement.columns.bind(statement);
+  const ownRaw = statement.raw.bind(statement);
+  statement.columns = () => (columns ??= ownColumns());
+  statement.raw = (toggle?: boolean) => {
+    if (notReader) throw notReader;
+    try {
+      return ownRaw(toggle);
+    } catch (error) {
+      notReader = error;
+      throw error;
+    }
+  };
+  return statement;
+}
+
+/** How many statements a connection holds now (for the test of the cache itself). */
+export function cachedStatements(connection: Database.Database): number {
+  const cache = byConnection.get(connection);
+  return cache && cache.generation === generation ? cache.statements.size : 0;
+}
