@@ -2,6 +2,7 @@ import { and, eq, gte, inArray, lt, lte, gt, sql } from "drizzle-orm";
 import type { Db, Reader, Tx } from "@/db/client";
 import { accountBudgetUse, accounts, estimateLines, workOrders } from "@/db/schema";
 import { APPROVED_STATES, isApprovedState, type LineState } from "@/lib/estimate";
+import { prepared } from "@/db/prepared";
 import { currentFiscalYear } from "./estimate-context";
 
 /*
@@ -54,12 +55,26 @@ export async function recountBudgetUsed(db: Reader, accountId: string, bounds: F
   return Number(row?.total ?? 0);
 }
 
-async function storedUse(db: Reader, accountId: string, bounds: FiscalBounds): Promise<number | null> {
-  const [row] = await db
+// Read by every work-order view and every decision, and moved by every approval: built once (db/prepared.ts).
+const storedUseRow = prepared((db) =>
+  db
     .select({ used: accountBudgetUse.usedCents })
     .from(accountBudgetUse)
-    .where(and(eq(accountBudgetUse.accountId, accountId), eq(accountBudgetUse.fromAt, bounds.fromIso), eq(accountBudgetUse.toAt, bounds.toIso)))
-    .limit(1);
+    .where(and(eq(accountBudgetUse.accountId, sql.placeholder("account")), eq(accountBudgetUse.fromAt, sql.placeholder("from")), eq(accountBudgetUse.toAt, sql.placeholder("to"))))
+    .limit(1)
+    .prepare(),
+);
+
+const moveUse = prepared((db) =>
+  db
+    .update(accountBudgetUse)
+    .set({ usedCents: sql`${accountBudgetUse.usedCents} + ${sql.placeholder("cents")}` })
+    .where(and(eq(accountBudgetUse.accountId, sql.placeholder("account")), lte(accountBudgetUse.fromAt, sql.placeholder("at")), gt(accountBudgetUse.toAt, sql.placeholder("at"))))
+    .prepare(),
+);
+
+async function storedUse(db: Reader, accountId: string, bounds: FiscalBounds): Promise<number | null> {
+  const row = await storedUseRow(db).get({ account: accountId, from: bounds.fromIso, to: bounds.toIso });
   return row ? row.used : null;
 }
 
@@ -92,10 +107,7 @@ export async function moveBudgetUse(tx: Tx, accountId: string, changed: readonly
   }
   for (const [at, cents] of delta) {
     if (cents === 0) continue;
-    await tx
-      .update(accountBudgetUse)
-      .set({ usedCents: sql`${accountBudgetUse.usedCents} + ${cents}` })
-      .where(and(eq(accountBudgetUse.accountId, accountId), lte(accountBudgetUse.fromAt, at), gt(accountBudgetUse.toAt, at)));
+    await moveUse(tx).run({ account: accountId, at, cents });
   }
 }
 

@@ -1,4 +1,4 @@
-import { and, eq, sql } from "drizzle-orm";
+import { and, eq, sql, type SQL } from "drizzle-orm";
 import type { Reader } from "@/db/client";
 import { accounts, estimateLines, shopSettings, units, workOrders, type Account, type EstimateLine as LineRow, type ShopSettings as ShopRow } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
@@ -7,7 +7,8 @@ import { fiscalYearOf, type AccountSettings, type EstimateLine, type FiscalYear,
 import { env } from "@/lib/env";
 import { calendarDate } from "@/lib/format";
 import { notFound } from "@/lib/http/problem";
-import { scopedTo } from "./scope";
+import { prepared } from "@/db/prepared";
+import { scopedTo, scopedToPlaceholder, scopeOf } from "./scope";
 
 export function toEstimateLine(row: LineRow): EstimateLine {
   return {
@@ -61,6 +62,27 @@ export async function loadWorkOrderRow(tx: Reader, user: Pick<SessionUser, "role
   return wo;
 }
 
+function contextQueries(woId: SQL) {
+  return {
+    head: prepared((r) =>
+      r
+        .select({ wo: workOrders, account: accounts, shop: shopSettings, unitNumber: units.unitNumber })
+        .from(workOrders)
+        .innerJoin(accounts, eq(accounts.id, workOrders.accountId))
+        .innerJoin(units, eq(units.id, workOrders.unitId))
+        .leftJoin(shopSettings, eq(shopSettings.id, 1))
+        .where(and(sql`${workOrders.id} = ${woId}`, scopedToPlaceholder(workOrders.accountId)))
+        .limit(1)
+        .prepare(),
+    ),
+    lines: prepared((r) => r.select().from(estimateLines).where(sql`${estimateLines.workOrderId} = ${woId}`).orderBy(estimateLines.position, estimateLines.createdAt).prepare()),
+  };
+}
+
+// Read on every view and inside every decision: built once (db/prepared.ts), by the work order or by one of its lines.
+const byWorkOrder = contextQueries(sql`${sql.placeholder("of")}`);
+const byLine = contextQueries(sql`(select ${estimateLines.workOrderId} from ${estimateLines} where ${estimateLines.id} = ${sql.placeholder("of")})`);
+
 /**
  * Everything the estimate rules need about one work order, read inside the
  * caller's transaction so the check and the write see the same rows: the work
@@ -68,19 +90,9 @@ export async function loadWorkOrderRow(tx: Reader, user: Pick<SessionUser, "role
  * then its lines. `of` names the work order, or one of its lines.
  */
 export async function loadEstimateContext(tx: Reader, user: Pick<SessionUser, "role" | "accountId">, of: string | { lineId: string }) {
-  const woId = typeof of === "string" ? sql`${of}` : sql`(select ${estimateLines.workOrderId} from ${estimateLines} where ${estimateLines.id} = ${of.lineId})`;
-  const [head, lines] = await Promise.all([
-    tx
-      .select({ wo: workOrders, account: accounts, shop: shopSettings, unitNumber: units.unitNumber })
-      .from(workOrders)
-      .innerJoin(accounts, eq(accounts.id, workOrders.accountId))
-      .innerJoin(units, eq(units.id, workOrders.unitId))
-      .leftJoin(shopSettings, eq(shopSettings.id, 1))
-      .where(and(sql`${workOrders.id} = ${woId}`, scopedTo(workOrders.accountId, user)))
-      .limit(1)
-      .then((rows) => rows[0]),
-    tx.select().from(estimateLines).where(sql`${estimateLines.workOrderId} = ${woId}`).orderBy(estimateLines.position, estimateLines.createdAt),
-  ]);
+  const queries = typeof of === "string" ? byWorkOrder : byLine;
+  const values = { of: typeof of === "string" ? of : of.lineId };
+  const [head, lines] = await Promise.all([queries.head(tx).get({ ...values, ...scopeOf(user) }), queries.lines(tx).all(values)]);
   if (!head) throw notFound(typeof of === "string" ? "That work order" : "That line");
   if (!head.shop) throw new Error("shop settings missing");
   return { wo: head.wo, account: head.account, shop: head.shop, unitNumber: head.unitNumber, lines };

@@ -1,15 +1,16 @@
-import { and, asc, desc, eq, inArray, isNotNull } from "drizzle-orm";
+import { and, asc, desc, eq, inArray, isNotNull, sql } from "drizzle-orm";
 import { getDb, type Reader } from "@/db/client";
+import { prepared } from "@/db/prepared";
 import { accounts, concerns, decisions, findingReadings, findings, photos, statusEvents, units, users, workOrders } from "@/db/schema";
 import type { SessionUser } from "@/lib/auth/session-user";
 import { SEVERITIES } from "@/lib/domain";
 import { photoUrls } from "@/lib/uploads/photo-urls";
-import { scopedTo } from "./scope";
+import { scopedToPlaceholder, scopeOf } from "./scope";
 import { clockedTechNameSql } from "./time-clock";
 
-/** The work order's header row, scoped: null for an id that does not exist or belongs to another account. */
-export async function findWorkOrder(user: SessionUser, id: string, db: Reader = getDb()) {
-  const [row] = await db
+// The hot reads of a work order's page and view are built once (db/prepared.ts), with placeholders for their inputs.
+const workOrderHeader = prepared((db) =>
+  db
     .select({
       id: workOrders.id,
       number: workOrders.number,
@@ -36,22 +37,32 @@ export async function findWorkOrder(user: SessionUser, id: string, db: Reader = 
     .innerJoin(units, eq(units.id, workOrders.unitId))
     .innerJoin(accounts, eq(accounts.id, workOrders.accountId))
     .leftJoin(users, eq(users.id, workOrders.assignedTechId))
-    .where(and(eq(workOrders.id, id), scopedTo(workOrders.accountId, user)))
-    .limit(1);
-  return row ?? null;
+    .where(and(eq(workOrders.id, sql.placeholder("id")), scopedToPlaceholder(workOrders.accountId)))
+    .limit(1)
+    .prepare(),
+);
+
+/** The work order's header row, scoped: null for an id that does not exist or belongs to another account. */
+export async function findWorkOrder(user: SessionUser, id: string, db: Reader = getDb()) {
+  return (await workOrderHeader(db).get({ id, ...scopeOf(user) })) ?? null;
 }
 
-export async function loadTimeline(workOrderId: string) {
-  return getDb()
+const timeline = prepared((db) =>
+  db
     .select({ id: statusEvents.id, status: statusEvents.status, note: statusEvents.note, at: statusEvents.at, by: users.name })
     .from(statusEvents)
     .leftJoin(users, eq(users.id, statusEvents.byUserId))
-    .where(eq(statusEvents.workOrderId, workOrderId))
-    .orderBy(desc(statusEvents.at));
+    .where(eq(statusEvents.workOrderId, sql.placeholder("wo")))
+    .orderBy(desc(statusEvents.at))
+    .prepare(),
+);
+
+export async function loadTimeline(workOrderId: string) {
+  return timeline(getDb()).all({ wo: workOrderId });
 }
 
-export async function loadConcerns(workOrderId: string) {
-  return getDb()
+const concernRows = prepared((db) =>
+  db
     .select({
       id: concerns.id,
       position: concerns.position,
@@ -64,14 +75,17 @@ export async function loadConcerns(workOrderId: string) {
       conclusion: concerns.conclusion,
     })
     .from(concerns)
-    .where(eq(concerns.workOrderId, workOrderId))
-    .orderBy(asc(concerns.position), asc(concerns.createdAt));
+    .where(eq(concerns.workOrderId, sql.placeholder("wo")))
+    .orderBy(asc(concerns.position), asc(concerns.createdAt))
+    .prepare(),
+);
+
+export async function loadConcerns(workOrderId: string) {
+  return concernRows(getDb()).all({ wo: workOrderId });
 }
 
-/** Findings with photos and checked readings; Out of service first, then by severity, newest first. */
-export async function loadFindings(workOrderId: string) {
-  const db = getDb();
-  const rows = await db
+const findingRows = prepared((db) =>
+  db
     .select({
       id: findings.id,
       concernId: findings.concernId,
@@ -83,20 +97,36 @@ export async function loadFindings(workOrderId: string) {
     })
     .from(findings)
     .leftJoin(users, eq(users.id, findings.createdBy))
-    .where(eq(findings.workOrderId, workOrderId))
-    .orderBy(desc(findings.createdAt));
-  const ids = rows.map((r) => r.id);
-  const [photoRows, readingRows] = ids.length
-    ? await Promise.all([
-        db
-          .select({ id: photos.id, findingId: photos.findingId, name: photos.name, width: photos.width, height: photos.height })
-          .from(photos)
-          // By the work order (a finding's photos are attached on its visit): one ordered index range.
-          .where(and(eq(photos.workOrderId, workOrderId), isNotNull(photos.findingId)))
-          .orderBy(asc(photos.createdAt)),
-        db.select().from(findingReadings).where(inArray(findingReadings.findingId, ids)).orderBy(asc(findingReadings.position)),
-      ])
-    : [[], []];
+    .where(eq(findings.workOrderId, sql.placeholder("wo")))
+    .orderBy(desc(findings.createdAt))
+    .prepare(),
+);
+
+const findingPhotos = prepared((db) =>
+  db
+    .select({ id: photos.id, findingId: photos.findingId, name: photos.name, width: photos.width, height: photos.height })
+    .from(photos)
+    // By the work order (a finding's photos are attached on its visit): one ordered index range.
+    .where(and(eq(photos.workOrderId, sql.placeholder("wo")), isNotNull(photos.findingId)))
+    .orderBy(asc(photos.createdAt))
+    .prepare(),
+);
+
+const findingReadingRows = prepared((db) =>
+  db
+    .select()
+    .from(findingReadings)
+    .where(inArray(findingReadings.findingId, db.select({ id: findings.id }).from(findings).where(eq(findings.workOrderId, sql.placeholder("wo")))))
+    .orderBy(asc(findingReadings.position))
+    .prepare(),
+);
+
+/** Findings with photos and checked readings; Out of service first, then by severity, newest first. */
+export async function loadFindings(workOrderId: string) {
+  const db = getDb();
+  const wo = { wo: workOrderId };
+  const rows = await findingRows(db).all(wo);
+  const [photoRows, readingRows] = rows.length ? await Promise.all([findingPhotos(db).all(wo), findingReadingRows(db).all(wo)]) : [[], []];
   return rows
     .map((f) => ({
       ...f,
@@ -123,9 +153,8 @@ export async function loadFindings(workOrderId: string) {
 
 export type FindingView = Awaited<ReturnType<typeof loadFindings>>[number];
 
-/** The latest decision on each line, with who made it. */
-export async function loadLatestDecisions(workOrderId: string) {
-  const rows = await getDb()
+const decisionRows = prepared((db) =>
+  db
     .select({
       id: decisions.id,
       lineId: decisions.lineId,
@@ -139,8 +168,14 @@ export async function loadLatestDecisions(workOrderId: string) {
     })
     .from(decisions)
     .leftJoin(users, eq(users.id, decisions.byUserId))
-    .where(eq(decisions.workOrderId, workOrderId))
-    .orderBy(desc(decisions.at));
+    .where(eq(decisions.workOrderId, sql.placeholder("wo")))
+    .orderBy(desc(decisions.at))
+    .prepare(),
+);
+
+/** The latest decision on each line, with who made it. */
+export async function loadLatestDecisions(workOrderId: string) {
+  const rows = await decisionRows(getDb()).all({ wo: workOrderId });
   const latest = new Map<string, (typeof rows)[number]>();
   for (const r of rows) if (!latest.has(r.lineId)) latest.set(r.lineId, r);
   return { latest, all: rows };

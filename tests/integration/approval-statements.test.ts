@@ -12,7 +12,9 @@
 // 59 once the photo addresses moved out of the upload glue into lib/uploads/photo-urls.ts, 60
 // with the formatters built once per process (lib/intl-cache.ts), 61 with the invoice's one shape
 // (lib/records/invoice.ts, which the mail worker's invoice attachments load), 62 with the route
-// inputs shared with the OpenAPI description (lib/validation/api-queries.ts, where idParams lives).
+// inputs shared with the OpenAPI description (lib/validation/api-queries.ts, where idParams lives),
+// 64 with the prepared-statement cache under the client (db/statement-cache.ts) and the hot
+// queries built once (db/prepared.ts).
 // The bounds below are today's figures, so neither can silently grow back.
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as decideOne } from "@/app/api/v1/lines/[id]/decision/route";
@@ -25,7 +27,7 @@ import { lineByDescription, workOrderByNumber } from "./helpers/work-orders";
 const SUPERVISOR = "supervisor@brennan-twp.example";
 const ROUTE = "app/api/v1/lines/[id]/decision/route.ts";
 const STATEMENTS_NOW = 13;
-const FILES_LOADED_NOW = 62;
+const FILES_LOADED_NOW = 64;
 
 beforeAll(async () => {
   // The mail worker's own reads after the commit are not the approval's.
