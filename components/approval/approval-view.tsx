@@ -1,7 +1,7 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { Fragment, useEffect, useState, type ReactNode } from "react";
+import { Fragment, useEffect, useRef, useState, type ReactNode } from "react";
 import useSWR from "swr";
 import { ApiError, fetchJson, LIVE_REFRESH_MS } from "@/components/data/fetcher";
 import { DecisionLog } from "@/components/estimate/decision-log";
@@ -14,6 +14,18 @@ import { ApprovalLine } from "./approval-line";
 import { ApproveWhatFits, type Colleague } from "./approve-what-fits";
 import { serverPartsKey, type ApprovalData } from "./approval-data";
 import { LimitsPanel } from "./limits-panel";
+
+/** The line a link points at (`#line-<id>`), read after hydration so the server and first client render agree. */
+function useLinkedLine(): string | null {
+  const [id, setId] = useState<string | null>(null);
+  useEffect(() => {
+    const read = () => setId(window.location.hash.startsWith("#line-") ? window.location.hash.slice("#line-".length) : null);
+    read();
+    window.addEventListener("hashchange", read);
+    return () => window.removeEventListener("hashchange", read);
+  }, []);
+  return id;
+}
 
 async function post(url: string, body: unknown) {
   return fetchJson(url, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify(body) });
@@ -33,6 +45,7 @@ export function ApprovalView({
   findingCards,
   timeline,
   partsKey,
+  pageSize,
 }: {
   /** Only what this component updates live; the findings and the timeline come rendered by the server. */
   initial: ApprovalData;
@@ -46,6 +59,8 @@ export function ApprovalView({
   timeline: ReactNode;
   /** serverPartsKey() of what the server rendered: when the polled view differs, the server parts are fetched again. */
   partsKey: string;
+  /** Lines drawn at first and per "show the next": the API's page size, so a 250-line estimate is not 250 rows of markup at once. */
+  pageSize: number;
 }) {
   const key = `/api/v1/work-orders/${initial.id}`;
   // The polled answer is the whole API view; this page reads the ApprovalData part of it.
@@ -102,6 +117,21 @@ export function ApprovalView({
     run(() => post(`/api/v1/work-orders/${view.id}/decisions`, { decisions: lines.map((l) => ({ lineId: l.id, decision: "approve", expectedVersion: l.version })) }), null, success);
   // Waiting lines in the order the page shows them (by concern, then the rest).
   const shownWaiting = groups.flatMap((g) => pending.filter((l) => (l.concernId ?? "") === g.id));
+  // Every line is in the data (totals, limits and "approve what fits" cover them all); only the rows drawn are paged.
+  const ordered = groups.flatMap((g) => view.lines.filter((l) => (l.concernId ?? "") === g.id));
+  const [shown, setShown] = useState(pageSize);
+  // A link to one line (the pass-on e-mail's) draws as many pages as it takes to reach it, and scrolls there once.
+  const linkedLine = useLinkedLine();
+  const linkedAt = ordered.findIndex((l) => l.id === linkedLine);
+  const count = linkedAt >= shown ? Math.ceil((linkedAt + 1) / pageSize) * pageSize : shown;
+  const drawn = new Set(ordered.slice(0, count).map((l) => l.id));
+  const notDrawn = ordered.length - drawn.size;
+  const reached = useRef<string | null>(null);
+  useEffect(() => {
+    if (!linkedLine || linkedAt < 0 || reached.current === linkedLine) return;
+    reached.current = linkedLine;
+    document.getElementById(`line-${linkedLine}`)?.scrollIntoView();
+  }, [linkedLine, linkedAt]);
 
   return (
     <div className="flex flex-col gap-4">
@@ -131,7 +161,7 @@ export function ApprovalView({
       ) : null}
       {!canDecide ? <p className="text-sm text-ink-soft">Only your account&apos;s approvers can decide on these lines.</p> : null}
       {groups.map((g) => {
-        const lines = view.lines.filter((l) => (l.concernId ?? "") === g.id);
+        const lines = view.lines.filter((l) => (l.concernId ?? "") === g.id && drawn.has(l.id));
         const found = otherFindings.filter((f) => (f.concernId ?? "") === g.id);
         if (!lines.length && !found.length) return null;
         return (
@@ -167,6 +197,16 @@ export function ApprovalView({
           </section>
         );
       })}
+      {notDrawn > 0 ? (
+        <div className="flex flex-col items-start gap-2">
+          <p className="text-sm text-ink-soft" data-testid="lines-drawn">
+            Showing {drawn.size} of {ordered.length} lines. The totals and your limits above count all of them.
+          </p>
+          <button type="button" className="rounded-card border-2 border-ink bg-white px-4 py-2 font-semibold" onClick={() => setShown(count + pageSize)}>
+            Show the next {Math.min(pageSize, notDrawn)} lines
+          </button>
+        </div>
+      ) : null}
       <TotalsBar totals={view.totals} ifAllPendingApprovedCents={view.estimateTotals.ifAllPendingApprovedCents} taxExempt={taxExempt} />
       <Card>
         <CardTitle>Decisions</CardTitle>

@@ -13,6 +13,7 @@ import { higherLimitApprovers } from "@/db/queries/pass-on";
 import { workOrderView } from "@/db/queries/work-order-view";
 import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
+import { PAGE_SIZE } from "@/lib/http/pagination";
 import { READING_CAUTION } from "@/lib/specs";
 import { eq } from "drizzle-orm";
 
@@ -39,6 +40,7 @@ export default async function FleetWorkOrderPage({ params }: { params: Promise<{
         taxExempt={account?.taxExempt ?? false}
         colleagues={colleagues}
         partsKey={serverPartsKey(view)}
+        pageSize={PAGE_SIZE}
         outOfService={
           <>
             {outOfService.length ? (
