@@ -8,6 +8,7 @@ import { DecisionLog } from "@/components/estimate/decision-log";
 import { PhotoStrip } from "@/components/findings/photo-strip";
 import { TotalsBar } from "@/components/estimate/totals-bar";
 import { Card, CardTitle } from "@/components/ui/card";
+import { ShowMore } from "@/components/ui/show-more";
 import type { Decision } from "@/lib/domain";
 import { asSentence } from "@/lib/format";
 import { ApprovalLine } from "./approval-line";
@@ -125,7 +126,9 @@ export function ApprovalView({
   const linkedAt = ordered.findIndex((l) => l.id === linkedLine);
   const count = linkedAt >= shown ? Math.ceil((linkedAt + 1) / pageSize) * pageSize : shown;
   const drawn = new Set(ordered.slice(0, count).map((l) => l.id));
-  const notDrawn = ordered.length - drawn.size;
+  // The decision log, newest first, a page at a time too.
+  const [decisionsShown, setDecisionsShown] = useState(pageSize);
+  const lineById = new Map(view.lines.map((l) => [l.id, l]));
   const reached = useRef<string | null>(null);
   useEffect(() => {
     if (!linkedLine || linkedAt < 0 || reached.current === linkedLine) return;
@@ -197,20 +200,12 @@ export function ApprovalView({
           </section>
         );
       })}
-      {notDrawn > 0 ? (
-        <div className="flex flex-col items-start gap-2">
-          <p className="text-sm text-ink-soft" data-testid="lines-drawn">
-            Showing {drawn.size} of {ordered.length} lines. The totals and your limits above count all of them.
-          </p>
-          <button type="button" className="rounded-card border-2 border-ink bg-white px-4 py-2 font-semibold" onClick={() => setShown(count + pageSize)}>
-            Show the next {Math.min(pageSize, notDrawn)} lines
-          </button>
-        </div>
-      ) : null}
+      <ShowMore drawn={drawn.size} total={ordered.length} noun="lines" pageSize={pageSize} note="The totals and your limits above count all of them." onMore={() => setShown(count + pageSize)} testId="lines-drawn" />
       <TotalsBar totals={view.totals} ifAllPendingApprovedCents={view.estimateTotals.ifAllPendingApprovedCents} taxExempt={taxExempt} />
       <Card>
         <CardTitle>Decisions</CardTitle>
-        <DecisionLog entries={view.decisionLog} describe={(lineId) => view.lines.find((l) => l.id === lineId)?.description ?? "Removed line"} />
+        <DecisionLog entries={view.decisionLog.slice(0, decisionsShown)} describe={(lineId) => lineById.get(lineId)?.description ?? "Removed line"} />
+        <ShowMore drawn={Math.min(decisionsShown, view.decisionLog.length)} total={view.decisionLog.length} noun="decisions" pageSize={pageSize} onMore={() => setDecisionsShown((n) => n + pageSize)} />
       </Card>
       {timeline}
     </div>

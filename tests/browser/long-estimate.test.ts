@@ -1,12 +1,12 @@
 // A long estimate on the approver's phone (issue 13): the page draws the API's
 // page size of lines at first (the server's HTML holds no more), shows the rest
 // a page at a time, and a link to one line far down draws as far as it.
-import { and, eq, sql } from "drizzle-orm";
+import { and, eq, like, sql } from "drizzle-orm";
 import { encode } from "next-auth/jwt";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { openDatabase } from "@/db/client";
-import { accounts, estimateLines, units, users, workOrders } from "@/db/schema";
+import { accounts, auditLog, decisions, estimateLines, mailOutbox, statusEvents, units, users, workOrders } from "@/db/schema";
 import { PAGE_SIZE } from "@/lib/http/pagination";
 import { launch, newContext, PHONE, screenshot, signIn } from "./helpers";
 
@@ -54,6 +54,11 @@ afterAll(async () => {
   await browser?.close();
   // The shared database is left as the other files expect it.
   if (workOrderId) {
+    // With what the decisions wrote: their timeline entry, audit row and the writer's grouped e-mail, still waiting.
+    await handle.db.delete(mailOutbox).where(like(mailOutbox.groupKey, `decision_made:${workOrderId}|%`));
+    await handle.db.delete(auditLog).where(eq(auditLog.entityId, workOrderId));
+    await handle.db.delete(statusEvents).where(eq(statusEvents.workOrderId, workOrderId));
+    await handle.db.delete(decisions).where(eq(decisions.workOrderId, workOrderId));
     await handle.db.delete(estimateLines).where(eq(estimateLines.workOrderId, workOrderId));
     await handle.db.delete(workOrders).where(eq(workOrders.id, workOrderId));
   }
@@ -85,6 +90,25 @@ describe("a 70-line estimate on the approver's phone", () => {
     await page.getByTestId("approval-line").filter({ hasText: `Marker lamp ${LINES}` }).waitFor();
     expect(await page.getByTestId("approval-line").count()).toBe(LINES);
     expect(await page.getByTestId("lines-drawn").count()).toBe(0);
+  });
+
+  it("the decision log shows the latest page of decisions, the rest on request", async () => {
+    // Sixty lines held in one batch (holding leaves the budget as it is): sixty decisions.
+    const held = lineIds.slice(0, 60).map((lineId) => ({ lineId, decision: "hold", expectedVersion: 1, note: "Next budget year." }));
+    const res = await fetch(`${inject("baseUrl")}/api/v1/work-orders/${workOrderId}/decisions`, {
+      method: "POST",
+      headers: { cookie: await supervisorCookie(), "content-type": "application/json", origin: inject("baseUrl") },
+      body: JSON.stringify({ decisions: held }),
+    });
+    expect(res.status).toBe(200);
+    const page = await (await newContext(browser, PHONE)).newPage();
+    await signIn(page, "supervisor@brennan-twp.example");
+    await page.goto(`/fleet/work-orders/${workOrderId}`);
+    const log = page.getByTestId("decision-log-list").locator("li");
+    await log.first().waitFor();
+    expect(await log.count()).toBe(PAGE_SIZE);
+    await page.getByRole("button", { name: "Show the next 10 decisions" }).click();
+    await expect.poll(() => log.count()).toBe(60);
   });
 
   it("a link to a line past the first page draws as far as it and shows it", async () => {
