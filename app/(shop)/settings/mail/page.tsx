@@ -4,11 +4,11 @@ import { RetryMailButton } from "@/components/settings/retry-mail-button";
 import { Card } from "@/components/ui/card";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeader } from "@/components/ui/page-header";
-import { outgoingMail, type MailStatus } from "@/db/queries/mail-outbox";
+import { MAIL_COUNT_CAP, outgoingMail, type MailStatus } from "@/db/queries/mail-outbox";
 import { requirePageRole } from "@/lib/server/auth/page-access";
 import { CAN } from "@/lib/auth/policy";
 import { env } from "@/lib/env";
-import { formatDateTime } from "@/lib/format";
+import { formatDateTime, formatNumber } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Outgoing mail" };
 
@@ -36,7 +36,7 @@ export default async function OutgoingMailPage({ searchParams }: { searchParams:
         {FILTERS.map((f) => (
           <Link key={f} href={f === "all" ? "/settings/mail" : `/settings/mail?status=${f}`} aria-current={f === filter ? "page" : undefined} className="rounded-card border border-rule px-3 py-2 no-underline aria-[current=page]:border-rust aria-[current=page]:font-bold">
             {f === "all" ? "All" : LABELS[f]}
-            {f === "all" ? "" : ` (${counts[f]})`}
+            {f === "all" ? "" : ` (${counts[f] >= MAIL_COUNT_CAP ? `${formatNumber(MAIL_COUNT_CAP)}+` : formatNumber(counts[f])})`}
           </Link>
         ))}
       </nav>
