@@ -1,10 +1,22 @@
 import { spawn, type ChildProcess } from "node:child_process";
+import { readFileSync } from "node:fs";
 import path from "node:path";
 import { freePort } from "./ports";
 
 export const root = path.join(import.meta.dirname, "..", "..");
 // A separate build directory per checkout or worktree lets test runs sit side by side.
 export const testDistDir = process.env.COTTER_TEST_DIST_DIR ?? ".next-test";
+
+/**
+ * The heap ceiling `npm start` gives the server (package.json, COTTER_HEAP_MB), read from there
+ * so the tests and the benchmark run the app as production does.
+ */
+export function heapFlag(): string {
+  const start = (JSON.parse(readFileSync(path.join(root, "package.json"), "utf8")) as { scripts: { start: string } }).scripts.start;
+  const fallback = /COTTER_HEAP_MB:-(\d+)/.exec(start)?.[1];
+  if (!fallback) throw new Error("package.json's start script no longer sets the heap ceiling");
+  return `--max-old-space-size=${process.env.COTTER_HEAP_MB ?? fallback}`;
+}
 
 export interface NextServer {
   url: string;
@@ -39,7 +51,7 @@ export async function startNextServer(o: NextServerOptions): Promise<NextServer>
   const url = `http://127.0.0.1:${port}`;
   // The app's own links point at where it runs, unless the test is about an environment given in full.
   const base = o.inheritEnv === false ? { PATH: process.env.PATH ?? "", HOME: process.env.HOME ?? "" } : { ...process.env, NEXTAUTH_URL: url };
-  const child = spawn(process.execPath, [path.join(root, "node_modules", "next", "dist", "bin", "next"), "start", "-p", String(port), "-H", "127.0.0.1"], {
+  const child = spawn(process.execPath, [heapFlag(), path.join(root, "node_modules", "next", "dist", "bin", "next"), "start", "-p", String(port), "-H", "127.0.0.1"], {
     cwd: root,
     env: { ...base, NODE_ENV: "production", NEXT_DIST_DIR: o.distDir, NEXT_TELEMETRY_DISABLED: "1", ...o.env },
     stdio: ["ignore", "pipe", "pipe"],
