@@ -116,10 +116,10 @@ export function ApprovalView({
 
   const approveSome = (lines: typeof pending, success: string) =>
     run(() => post(`/api/v1/work-orders/${view.id}/decisions`, { decisions: lines.map((l) => ({ lineId: l.id, decision: "approve", expectedVersion: l.version })) }), null, success);
-  // Waiting lines in the order the page shows them (by concern, then the rest).
-  const shownWaiting = groups.flatMap((g) => pending.filter((l) => (l.concernId ?? "") === g.id));
-  // Every line is in the data (totals, limits and "approve what fits" cover them all); only the rows drawn are paged.
+  // Every line in the order the page shows them (by concern, then the rest). All are in the data
+  // (totals, limits and "approve what fits" cover them all); only the rows drawn are paged.
   const ordered = groups.flatMap((g) => view.lines.filter((l) => (l.concernId ?? "") === g.id));
+  const shownWaiting = ordered.filter((l) => l.state === "proposed");
   const [shown, setShown] = useState(pageSize);
   // A link to one line (the pass-on e-mail's) draws as many pages as it takes to reach it, and scrolls there once.
   const linkedLine = useLinkedLine();
