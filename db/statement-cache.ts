@@ -1,4 +1,5 @@
 import Database from "libsql";
+import { clientRows } from "./client-rows";
 
 type Statement = ReturnType<Database.Database["prepare"]>;
 
@@ -70,17 +71,30 @@ export function installStatementCache(): void {
   } as Database.Database["prepare"];
 }
 
-/** The column list and whether the statement returns rows do not change while the schema does not: ask the native side once. */
+/**
+ * The column list and whether the statement returns rows do not change while
+ * the schema does not: ask the native side once. Rows read in raw mode (the
+ * client's way) leave as db/client-rows.ts builds them.
+ */
 function remembered(statement: Statement): Statement {
   let columns: ReturnType<Statement["columns"]> | undefined;
+  let names: string[] | undefined;
   let notReader: unknown;
+  let raw = false;
   const ownColumns = statement.columns.bind(statement);
   const ownRaw = statement.raw.bind(statement);
+  const ownAll = statement.all.bind(statement) as (...params: unknown[]) => unknown[];
   statement.columns = () => (columns ??= ownColumns());
+  statement.all = (...args: unknown[]) => {
+    const rows = ownAll(...args);
+    return raw ? clientRows(rows, (names ??= statement.columns().map((c) => c.name))) : rows;
+  };
   statement.raw = (toggle?: boolean) => {
     if (notReader) throw notReader;
     try {
-      return ownRaw(toggle);
+      const same = ownRaw(toggle);
+      raw = toggle !== false;
+      return same;
     } catch (error) {
       notReader = error;
       throw error;

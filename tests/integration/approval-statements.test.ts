@@ -14,7 +14,8 @@
 // (lib/records/invoice.ts, which the mail worker's invoice attachments load), 62 with the route
 // inputs shared with the OpenAPI description (lib/validation/api-queries.ts, where idParams lives),
 // 64 with the prepared-statement cache under the client (db/statement-cache.ts) and the hot
-// queries built once (db/prepared.ts).
+// queries built once (db/prepared.ts), 65 with the client's rows built once per column list
+// (db/client-rows.ts).
 // The bounds below are today's figures, so neither can silently grow back.
 import { beforeAll, describe, expect, it } from "vitest";
 import { POST as decideOne } from "@/app/api/v1/lines/[id]/decision/route";
@@ -27,7 +28,7 @@ import { lineByDescription, workOrderByNumber } from "./helpers/work-orders";
 const SUPERVISOR = "supervisor@brennan-twp.example";
 const ROUTE = "app/api/v1/lines/[id]/decision/route.ts";
 const STATEMENTS_NOW = 13;
-const FILES_LOADED_NOW = 64;
+const FILES_LOADED_NOW = 65;
 
 beforeAll(async () => {
   // The mail worker's own reads after the commit are not the approval's.
