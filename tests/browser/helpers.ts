@@ -1,12 +1,10 @@
-import { existsSync, mkdirSync } from "node:fs";
+import { mkdirSync } from "node:fs";
 import path from "node:path";
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import type { Browser, BrowserContext, Page } from "playwright-core";
 import { inject } from "vitest";
 import type { CaughtMail } from "@/mocks/smtp/server";
+import { launchChromium } from "@/tests/support/chromium";
 import { APP_MAILBOX, mailbox } from "@/tests/support/mailbox";
-
-// Debian's Chromium: the binary itself avoids the wrapper script's warning.
-const EXECUTABLE = ["/usr/lib/chromium/chromium", "/usr/bin/chromium"].find((p) => existsSync(p)) ?? "/usr/bin/chromium";
 
 export const PHONE = { width: 390, height: 844 };
 export const DESKTOP = { width: 1366, height: 900 };
@@ -16,21 +14,8 @@ export function baseUrl(): string {
   return inject("baseUrl");
 }
 
-/** Playwright gives each launch a fresh, empty profile directory of its own. */
-export async function launch(): Promise<Browser> {
-  return chromium.launch({
-    executablePath: EXECUTABLE,
-    args: [
-      "--no-sandbox",
-      "--disable-gpu",
-      "--disable-quic",
-      "--disable-background-networking",
-      "--disable-component-update",
-      "--no-first-run",
-      "--disable-sync",
-    ],
-  });
-}
+/** The browser every test drives (tests/support/chromium.ts). */
+export const launch = launchChromium;
 
 export async function newContext(browser: Browser, viewport = PHONE, base = baseUrl()): Promise<BrowserContext> {
   return browser.newContext({ viewport, baseURL: base, isMobile: viewport === PHONE, hasTouch: viewport === PHONE });
