@@ -3,7 +3,8 @@
  * the big one (tests/bench/big-db), signed in as the township's people,
  * autocannon at 32 connections in rounds interleaved between the two; then
  * approvals per second on the big township with a database count that proves
- * none were lost; the server's memory; the approval page's own JS.
+ * none were lost; the server's memory; the approval page's own JS and its
+ * largest contentful paint on a phone in Chromium.
  *
  * Run: npm run bench -- http [--quick] [--skip-build]
  *   --quick       one 3 s round per route (a smoke run); a full run is three 10 s rounds
@@ -16,6 +17,7 @@ import path from "node:path";
 import { manifestFile, type BigManifest } from "./big-db/generate";
 import { runApprovals } from "./http/approvals";
 import { readFixtures, type Fixtures, type Person } from "./http/fixtures";
+import { measureLcp } from "./http/lcp";
 import { load } from "./http/load";
 import { pageJs } from "./http/page-js";
 import { approvalsText, jsText, memoryText, routesTable, type Db, type Rounds } from "./http/report";
@@ -142,6 +144,8 @@ async function main() {
 
     const html = await (await fetch(`${servers.big.baseUrl}/fleet/work-orders/${fixtures.big.bigVisit}`, { headers: { cookie: fixtures.big.cookies.supervisor } })).text();
     const js = pageJs(html, distDir);
+    // After the load, on a quiet server: the page as one approver meets it.
+    const lcp = await measureLcp(`${servers.big.baseUrl}/fleet/work-orders/${fixtures.big.bigVisit}`, fixtures.big.cookies.supervisor);
 
     const report = [
       "",
@@ -158,11 +162,12 @@ async function main() {
       "",
       "approval page (250 lines), big database:",
       jsText(js),
+      `  LCP on a 390 px phone viewport (headless Chromium, ${lcp.loads.length} cold loads): median ${lcp.medianMs} ms (${lcp.loads.join(", ")})`,
       "",
       `load average (1, 5, 15 min): ${loadAtStart} at the start, ${loadAfterRoutes} after the routes, ${load1()} at the end; ${((Date.now() - startedAt) / 60_000).toFixed(1)} min in all`,
     ].join("\n");
     console.log(report);
-    writeFileSync(path.join(dir, "http-results.json"), JSON.stringify({ quick, cfg, rounds, approvals: { ...approvals }, memory, js, big: { counts: big.counts, seconds: big.seconds } }, null, 2));
+    writeFileSync(path.join(dir, "http-results.json"), JSON.stringify({ quick, cfg, rounds, approvals: { ...approvals }, memory, js, lcp, big: { counts: big.counts, seconds: big.seconds } }, null, 2));
     const lost = approvals.ok !== approvals.inDatabase.lines || approvals.ok !== approvals.inDatabase.decisions || approvals.refused > 0;
     if (lost) process.exitCode = 1;
   } finally {
