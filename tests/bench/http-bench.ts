@@ -50,10 +50,14 @@ const ROUTES: Route[] = [
   { name: "GET /api/v1/work-orders", as: "supervisor", path: () => "/api/v1/work-orders", check: (b) => (json(b).workOrders?.length ?? 0) > 0 },
   { name: "GET /api/v1/work-orders/:id (W-1042, 11 lines)", as: "supervisor", path: (f) => `/api/v1/work-orders/${f.w1042}`, check: (b) => json(b).lines?.length === 11 },
   { name: "GET /api/v1/invoices (clerk)", as: "clerk", path: () => "/api/v1/invoices", check: (b) => (json(b).invoices?.length ?? 0) > 0 },
+  // The floor under every page: a signed-in page that reads nothing but its caller (the person's own sign-in).
+  { name: "smallest page: /fleet/me (supervisor)", as: "supervisor", path: () => "/fleet/me", check: (b) => b.includes("</html>") },
+  { name: "fleet approval page, W-1042 (11 lines)", as: "supervisor", path: (f) => `/fleet/work-orders/${f.w1042}`, check: (b) => b.includes("</html>") && b.includes("W-1042") },
   { name: "fleet approval page, 250 lines", as: "supervisor", path: (f) => `/fleet/work-orders/${f.bigVisit}`, check: (b) => b.includes("</html>") && b.length > 50_000 },
   { name: "/floor (writer)", as: "writer", path: () => "/floor", check: (b) => b.includes("units in the shop") },
 ];
 const ME = ROUTES[1]!.name;
+const SMALLEST_PAGE = ROUTES[6]!.name;
 
 async function checkRoutes(server: AppServer, f: Fixtures): Promise<void> {
   for (const r of ROUTES) {
@@ -151,7 +155,7 @@ async function main() {
       "",
       `## HTTP bench (${quick ? "quick: one 3 s round" : `${cfg.rounds} rounds of ${cfg.seconds} s`}, ${CONNECTIONS} connections, medians)`,
       "",
-      routesTable(rounds, ME),
+      routesTable(rounds, ME, SMALLEST_PAGE),
       "",
       approvalsText(approvals, APPROVAL_CONNECTIONS),
       // Decision mail now waits in the outbox for two minutes so a burst reaches the writer as one message.
