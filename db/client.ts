@@ -66,7 +66,9 @@ export function getClient(): Client {
  * lock would block the event loop; queueing them here avoids that, and a
  * networked libSQL server serialises writers across instances itself.
  *
- * Writes that queue up while one runs are committed together (group commit):
+ * Writes asked for in the same turn of the event loop (the requests whose
+ * bytes arrived together), and those that queue up while one runs, are
+ * committed together (group commit):
  * one transaction, each write in its own savepoint, in the order they came, and
  * each promise settles only after that one COMMIT, so a caller is never told of
  * a change that is not on disk. A write that throws an HttpError (a refusal)
@@ -79,7 +81,12 @@ export function writeTx<T>(fn: (tx: Tx) => Promise<T>): Promise<T> {
   const h = handle();
   return new Promise<T>((resolve, reject) => {
     h.pending.push({ fn, resolve: resolve as (value: unknown) => void, reject });
-    if (!h.draining) void drainWrites(h);
+    if (h.draining) return;
+    h.draining = true;
+    // The driver is synchronous, so a write started at once would run to its COMMIT before the
+    // requests that arrived with it got as far as asking to write: each would pay its own fsync.
+    // Started after this turn's I/O callbacks instead, the writes they ask for join its group.
+    setImmediate(() => void drainWrites(h));
   });
 }
 

@@ -1,5 +1,5 @@
-// writeTx commits the writes that queue up behind a running one together
-// (db/client.ts): each in its own savepoint, each promise settled after the
+// writeTx commits together the writes asked for in one turn of the event loop
+// and those that queue up behind a running one (db/client.ts): each in its own savepoint, each promise settled after the
 // one COMMIT. What each caller is told must be exactly what is on disk.
 import { eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
@@ -36,6 +36,28 @@ describe("writes committed in groups", () => {
     results.forEach((r, i) => {
       if (typeof r === "number") expect(seen.some((ids) => ids.includes(`w${String(i).padStart(2, "0")}`))).toBe(true);
     });
+  });
+
+  it("groups the writes that callbacks of one turn of the event loop ask for, as requests arriving together do", async () => {
+    // Each write first reads through the pool, which sees only what has committed: in one group none sees another's row.
+    const committedBefore: number[] = [];
+    const writes = Array.from(
+      { length: 5 },
+      (_, i) =>
+        new Promise<number>((resolve, reject) =>
+          setImmediate(() => {
+            writeTx(async (tx) => {
+              committedBefore.push((await kept("group.turn")).length);
+              await tx.insert(auditLog).values(mark("group.turn", `t${i}`));
+              return i;
+            }).then(resolve, reject);
+          }),
+        ),
+    );
+    expect(await Promise.all(writes)).toEqual([0, 1, 2, 3, 4]);
+    // Started at once, each would have run to its COMMIT before the next callback: 0, 1, 2, 3, 4.
+    expect(committedBefore).toEqual([0, 0, 0, 0, 0]);
+    expect(await kept("group.turn")).toEqual(["t0", "t1", "t2", "t3", "t4"]);
   });
 
   it("fails only the write that broke, and still commits the others of its group exactly once", async () => {
