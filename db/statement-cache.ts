@@ -11,10 +11,18 @@ interface Cache {
   statements: Map<string, Statement>;
 }
 
-const byConnection = new WeakMap<Database.Database, Cache>();
-// Bumped by anything that may change the schema; every cache made before it is dropped on its next use.
-let generation = 0;
-let installed = false;
+/**
+ * Kept on globalThis: the patch is on the driver's one shared prototype, so a
+ * second copy of this module (a test runner's set-up loads its own) must find
+ * it installed and use the same caches, or every statement is wrapped twice.
+ */
+const shared = ((globalThis as Record<symbol, unknown>)[Symbol.for("cotter.statementCache")] ??= {
+  installed: false,
+  // Bumped by anything that may change the schema; every cache made before it is dropped on its next use.
+  generation: 0,
+  byConnection: new WeakMap<Database.Database, Cache>(),
+}) as { installed: boolean; generation: number; byConnection: WeakMap<Database.Database, Cache> };
+const byConnection = shared.byConnection;
 
 /** Schema changes and transaction control are not worth keeping; anything else that is not plain DML may change the schema. */
 function changesSchema(sql: string): boolean {
@@ -37,24 +45,24 @@ function changesSchema(sql: string): boolean {
  * with a statement goes with it; SQLite re-prepares a stale statement itself.
  */
 export function installStatementCache(): void {
-  if (installed) return;
-  installed = true;
+  if (shared.installed) return;
+  shared.installed = true;
   const prepare = Database.prototype.prepare;
   const exec = Database.prototype.exec;
 
   Database.prototype.exec = function (this: Database.Database, source: string) {
-    generation += 1;
+    shared.generation += 1;
     return exec.call(this, source);
   };
 
   Database.prototype.prepare = function (this: Database.Database, sql: string) {
     if (changesSchema(sql)) {
-      generation += 1;
+      shared.generation += 1;
       return prepare.call(this, sql);
     }
     let cache = byConnection.get(this);
-    if (!cache || cache.generation !== generation) {
-      cache = { generation, statements: new Map() };
+    if (!cache || cache.generation !== shared.generation) {
+      cache = { generation: shared.generation, statements: new Map() };
       byConnection.set(this, cache);
     }
     const hit = cache.statements.get(sql);
@@ -106,5 +114,5 @@ function remembered(statement: Statement): Statement {
 /** How many statements a connection holds now (for the test of the cache itself). */
 export function cachedStatements(connection: Database.Database): number {
   const cache = byConnection.get(connection);
-  return cache && cache.generation === generation ? cache.statements.size : 0;
+  return cache && cache.generation === shared.generation ? cache.statements.size : 0;
 }

@@ -11,7 +11,7 @@ import { createClient, type Client } from "@libsql/client";
 import { eq } from "drizzle-orm";
 import { drizzle } from "drizzle-orm/libsql";
 import { integer, sqliteTable, text } from "drizzle-orm/sqlite-core";
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
 import { installStatementCache } from "@/db/statement-cache";
 
 let dir: string;
@@ -76,6 +76,17 @@ describe("a row from the client", () => {
     tx.close();
     expect(inTx.rows[0]!.number).toBe("B-3");
     expect(inTx.toJSON()).toMatchObject({ columns: ["number"], rows: [["B-3"]] });
+  });
+
+  it("stays one wrapper when a second copy of the module installs it (a test runner's set-up loads its own)", async () => {
+    vi.resetModules();
+    const copy = await import("@/db/statement-cache");
+    expect(copy.installStatementCache).not.toBe(installStatementCache);
+    copy.installStatementCache();
+    const fresh = createClient({ url: `file:${path.join(dir, "t.db")}` });
+    const { rows } = await fresh.execute("SELECT id, name FROM accounts WHERE id = 'a1'");
+    expect({ ...rows[0] }).toEqual({ id: "a1", name: "Township roads" });
+    fresh.close();
   });
 
   it("maps through drizzle as before: selected fields, joins with repeated names, nulls", async () => {
