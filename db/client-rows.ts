@@ -64,8 +64,7 @@ const builders = new WeakMap<readonly string[], Build>();
  * is made once per statement.
  */
 export function clientRows(rows: unknown[], columns: readonly string[]): unknown[] {
-  // Empty, not raw arrays, or made ready already (by a second copy of the wrapper): nothing to do.
-  if (rows.length === 0 || !Array.isArray(rows[0]) || Object.hasOwn(rows, "map")) return rows;
+  if (rows.length === 0 || !Array.isArray(rows[0])) return rows;
   let build = builders.get(columns);
   if (!build) {
     build = rowBuilder(columns);

@@ -104,8 +104,8 @@ function isRefusal(error: unknown): boolean {
   return error instanceof Error && error.name === "HttpError";
 }
 
+/** Runs the queued writes group by group; writeTx set `draining` when it scheduled this. */
 async function drainWrites(h: Handle): Promise<void> {
-  h.draining = true;
   try {
     while (h.pending.length > 0) {
       const group = h.pending.splice(0, GROUP_MAX);

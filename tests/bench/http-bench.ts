@@ -43,21 +43,21 @@ interface Route {
 }
 
 const json = (body: string) => JSON.parse(body) as Record<string, unknown[] | undefined>;
+const ME = "GET /api/v1/me";
+const SMALLEST_PAGE = "smallest page: /fleet/me (supervisor)";
 const ROUTES: Route[] = [
   { name: "GET /api/v1/health (no auth)", as: null, path: () => "/api/v1/health", check: (b) => b.length > 0 },
-  { name: "GET /api/v1/me", as: "supervisor", path: () => "/api/v1/me", check: (b) => "id" in json(b) },
+  { name: ME, as: "supervisor", path: () => "/api/v1/me", check: (b) => "id" in json(b) },
   { name: "GET /api/v1/units", as: "supervisor", path: () => "/api/v1/units", check: (b) => (json(b).units?.length ?? 0) > 0 },
   { name: "GET /api/v1/work-orders", as: "supervisor", path: () => "/api/v1/work-orders", check: (b) => (json(b).workOrders?.length ?? 0) > 0 },
   { name: "GET /api/v1/work-orders/:id (W-1042, 11 lines)", as: "supervisor", path: (f) => `/api/v1/work-orders/${f.w1042}`, check: (b) => json(b).lines?.length === 11 },
   { name: "GET /api/v1/invoices (clerk)", as: "clerk", path: () => "/api/v1/invoices", check: (b) => (json(b).invoices?.length ?? 0) > 0 },
   // The floor under every page: a signed-in page that reads nothing but its caller (the person's own sign-in).
-  { name: "smallest page: /fleet/me (supervisor)", as: "supervisor", path: () => "/fleet/me", check: (b) => b.includes("</html>") },
+  { name: SMALLEST_PAGE, as: "supervisor", path: () => "/fleet/me", check: (b) => b.includes("</html>") },
   { name: "fleet approval page, W-1042 (11 lines)", as: "supervisor", path: (f) => `/fleet/work-orders/${f.w1042}`, check: (b) => b.includes("</html>") && b.includes("W-1042") },
   { name: "fleet approval page, 250 lines", as: "supervisor", path: (f) => `/fleet/work-orders/${f.bigVisit}`, check: (b) => b.includes("</html>") && b.length > 50_000 },
   { name: "/floor (writer)", as: "writer", path: () => "/floor", check: (b) => b.includes("units in the shop") },
 ];
-const ME = ROUTES[1]!.name;
-const SMALLEST_PAGE = ROUTES[6]!.name;
 
 async function checkRoutes(server: AppServer, f: Fixtures): Promise<void> {
   for (const r of ROUTES) {

@@ -3,10 +3,10 @@ import path from "node:path";
 import type { Browser, BrowserContext, Page } from "playwright-core";
 import { inject } from "vitest";
 import type { CaughtMail } from "@/mocks/smtp/server";
-import { launchChromium } from "@/tests/support/chromium";
+import { launchChromium, PHONE } from "@/tests/support/chromium";
 import { APP_MAILBOX, mailbox } from "@/tests/support/mailbox";
 
-export const PHONE = { width: 390, height: 844 };
+export { PHONE };
 export const DESKTOP = { width: 1366, height: 900 };
 export const DEMO_PASSWORD = "cotter-demo";
 

@@ -1,7 +1,5 @@
-import { launchChromium } from "../../support/chromium";
-
-/** A phone, as the approvers hold one (the browser tests' PHONE). */
-const PHONE = { width: 390, height: 844 };
+import { launchChromium, PHONE } from "../../support/chromium";
+import { median } from "./report";
 
 export interface LcpResult {
   /** Largest contentful paint of each load, ms from navigation start. */
@@ -48,6 +46,5 @@ export async function measureLcp(url: string, cookie: string, loads = 5): Promis
   } finally {
     await browser.close();
   }
-  const sorted = [...results].sort((a, b) => a - b);
-  return { loads: results, medianMs: sorted[Math.floor(sorted.length / 2)]! };
+  return { loads: results, medianMs: median(results) };
 }
